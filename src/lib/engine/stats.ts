@@ -134,5 +134,5 @@ export function wilson95(k: number, n: number): [number, number] {
 	const den = 1 + z2 / n;
 	const centre = (p + z2 / (2 * n)) / den;
 	const half = (Z975 * Math.sqrt((p * (1 - p)) / n + z2 / (4 * n * n))) / den;
-	return [Math.max(0, centre - half), Math.min(1, centre + half)];
+	return [k === 0 ? 0 : Math.max(0, centre - half), k === n ? 1 : Math.min(1, centre + half)];
 }
