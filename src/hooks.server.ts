@@ -1,0 +1,44 @@
+import { redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
+import { sequence } from '@sveltejs/kit/hooks';
+import { handle as authHandle } from '$lib/server/auth';
+import { isPublicPath } from '$lib/server/public-paths';
+import { ROLES, type Role } from '$lib/roles';
+
+const loadUser: Handle = async ({ event, resolve }) => {
+	const session = await event.locals.auth();
+	const u = session?.user as Partial<SessionUser> | undefined;
+	event.locals.user =
+		u?.id && u.role && ROLES.includes(u.role as Role) && u.organisationId
+			? {
+					id: Number(u.id),
+					email: u.email ?? '',
+					name: u.name ?? '',
+					role: u.role as Role,
+					organisationId: Number(u.organisationId)
+				}
+			: null;
+	return resolve(event);
+};
+
+// A first line of defence: nothing outside the public paths is served to an anonymous caller.
+// Each load, action and endpoint still checks the role itself (requireRole).
+const guard: Handle = async ({ event, resolve }) => {
+	const path = event.url.pathname;
+	if (!event.locals.user && !isPublicPath(path)) {
+		if (path.startsWith('/api/')) {
+			return new Response(JSON.stringify({ message: 'Sign in to use this endpoint.' }), {
+				status: 401,
+				headers: { 'content-type': 'application/json' }
+			});
+		}
+		redirect(303, `/signin?redirectTo=${encodeURIComponent(path + event.url.search)}`);
+	}
+	return resolve(event);
+};
+
+export const handle = sequence(authHandle, loadUser, guard);
+
+export const handleError: HandleServerError = ({ error, status, message }) => {
+	if (status >= 500) console.error(error);
+	return { message: status >= 500 ? 'Something went wrong on our side. Try again in a moment.' : message };
+};

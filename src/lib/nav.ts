@@ -1,0 +1,20 @@
+import type { Role } from './roles';
+
+export interface NavItem {
+	href: string;
+	label: string;
+	roles: Role[];
+}
+
+/** The navigation; each role sees only what it may use (the server checks again). */
+export const NAV: NavItem[] = [
+	{ href: '/desk', label: 'Desk', roles: ['agronomist', 'admin'] },
+	{ href: '/rounds', label: 'My rounds', roles: ['scout'] },
+	{ href: '/my-farms', label: 'My farms', roles: ['grower'] },
+	{ href: '/region', label: 'Region', roles: ['regional'] },
+	{ href: '/admin/people', label: 'People', roles: ['admin'] }
+];
+
+export function navFor(role: Role) {
+	return NAV.filter((n) => n.roles.includes(role));
+}

@@ -1,0 +1,28 @@
+import type { Transaction } from 'sequelize';
+import type { Assessment as EngineAssessment, LevelKey } from '../engine';
+import { AuditLog, type Block } from './db/models';
+
+export interface LevelChange {
+	block: Block;
+	from: LevelKey | null;
+	to: EngineAssessment;
+	transaction?: Transaction;
+}
+
+/**
+ * The single place a block's change of level goes. Runs inside the caller's transaction, so
+ * whatever it writes (the audit entry, and the alert outbox rows) commits with the visit.
+ */
+export async function levelChanged(change: LevelChange) {
+	await AuditLog.create(
+		{
+			organisationId: change.block.organisationId,
+			actorId: null,
+			action: 'level-changed',
+			entity: 'block',
+			entityId: String(change.block.id),
+			details: { from: change.from, to: change.to.level, reason: change.to.reason }
+		},
+		{ transaction: change.transaction }
+	);
+}
