@@ -174,7 +174,7 @@ export function assessBlock(input: AssessBlockInput): Assessment {
 			})
 		: { level: 'calm' as const, reason: 'No scouting visits yet' };
 	const uppLatest = latest?.unitsPerPlant ?? null;
-	const cadPoints = same.map((v) => ({
+	const cadPoints = same.filter((v) => v.mean !== null).map((v) => ({
 		day: v.day,
 		density: v.mean === null ? 0 : v.mean * (v.unitsPerPlant ?? 1)
 	}));
@@ -184,7 +184,7 @@ export function assessBlock(input: AssessBlockInput): Assessment {
 		pest.yieldLoss?.kind === 'percent-per-cad' && uppLatest === null
 			? null
 			: yieldLoss(pest, cad, peak, block.expectedYieldKgHa, block.pricePerKg);
-	const sapDrain = uppLatest === null ? null : seasonDrain(cadPoints, input, cad);
+	const sapDrain = uppLatest === null || latest?.mean == null ? null : seasonDrain(cadPoints, input, cad);
 	const lv = LEVELS.find((l) => l.key === decided.level)!;
 	return {
 		asOf: input.asOf,
