@@ -1,7 +1,12 @@
 // Bench for the pressure engine: 10,000 blocks x 20 visits x 30 stops on one core.
 // Data are generated from a seeded PRNG so every run assesses the same blocks.
 import { pathToFileURL } from 'node:url';
-import { assessBlock, type AssessBlockInput, type VisitInput, type WeatherDay } from '../../src/lib/engine/index';
+import {
+	assessBlock,
+	type AssessBlockInput,
+	type VisitInput,
+	type WeatherDay
+} from '../../src/lib/engine/index';
 import { CROPS, PESTS, THRESHOLDS } from '../../src/lib/engine/library';
 
 function mulberry32(seed: number): () => number {
@@ -15,7 +20,8 @@ function mulberry32(seed: number): () => number {
 	};
 }
 
-const iso = (day: number) => new Date(Date.UTC(2025, 5, 1) + day * 86_400_000).toISOString().slice(0, 10);
+const iso = (day: number) =>
+	new Date(Date.UTC(2025, 5, 1) + day * 86_400_000).toISOString().slice(0, 10);
 
 function makeBlocks(count: number, visits: number, stops: number, seed = 42): AssessBlockInput[] {
 	const rnd = mulberry32(seed);
@@ -33,8 +39,15 @@ function makeBlocks(count: number, visits: number, stops: number, seed = 42): As
 		for (let v = 0; v < visits; v++) {
 			const units = new Array(stops);
 			// Clumped counts: a gamma-like spread around the block mean.
-			for (let u = 0; u < stops; u++) units[u] = { aphids: Math.floor(density * -Math.log(1 - rnd() * 0.999) ) };
-			vs.push({ date: iso(v * 5), bbch: 61 + Math.min(v, 18), sampleUnit: 'plant', units, mummies: Math.floor(density * rnd() * 0.1) });
+			for (let u = 0; u < stops; u++)
+				units[u] = { aphids: Math.floor(density * -Math.log(1 - rnd() * 0.999)) };
+			vs.push({
+				date: iso(v * 5),
+				bbch: 61 + Math.min(v, 18),
+				sampleUnit: 'plant',
+				units,
+				mummies: Math.floor(density * rnd() * 0.1)
+			});
 			density *= Math.exp(r * 5 * (0.5 + rnd()));
 		}
 		return {
@@ -42,7 +55,13 @@ function makeBlocks(count: number, visits: number, stops: number, seed = 42): As
 			crop,
 			pest,
 			thresholds: THRESHOLDS,
-			block: { areaHa: 10 + 50 * rnd(), plantsPerHa: 350_000, expectedYieldKgHa: 3200, pricePerKg: 0.45, rescoutDays: 5 },
+			block: {
+				areaHa: 10 + 50 * rnd(),
+				plantsPerHa: 350_000,
+				expectedYieldKgHa: 3200,
+				pricePerKg: 0.45,
+				rescoutDays: 5
+			},
 			visits: vs,
 			weather
 		};
@@ -50,7 +69,11 @@ function makeBlocks(count: number, visits: number, stops: number, seed = 42): As
 }
 
 /** Runs the bench and prints blocks per second and total time. */
-export function main(count = 10_000, visits = 20, stops = 30): { blocksPerSecond: number; totalMs: number } {
+export function main(
+	count = 10_000,
+	visits = 20,
+	stops = 30
+): { blocksPerSecond: number; totalMs: number } {
 	const blocks = makeBlocks(count, visits, stops);
 	for (let i = 0; i < 200; i++) assessBlock(blocks[i]); // warm the JIT
 	const levels: Record<string, number> = {};
@@ -61,7 +84,9 @@ export function main(count = 10_000, visits = 20, stops = 30): { blocksPerSecond
 	}
 	const totalMs = performance.now() - t0;
 	const blocksPerSecond = (count / totalMs) * 1000;
-	console.log(`engine: ${count} blocks x ${visits} visits x ${stops} stops in ${totalMs.toFixed(0)} ms`);
+	console.log(
+		`engine: ${count} blocks x ${visits} visits x ${stops} stops in ${totalMs.toFixed(0)} ms`
+	);
 	console.log(`engine: ${blocksPerSecond.toFixed(0)} blocks/s; levels ${JSON.stringify(levels)}`);
 	return { blocksPerSecond, totalMs };
 }

@@ -12,24 +12,34 @@ const grow = (start: number, days: number[], doubling: number) =>
 
 describe('assessBlock on soybean aphid', () => {
 	it('is calm when low and slow', () => {
-		const a = assessBlock(soybeanBlock([plantVisit('2025-07-01', 20), plantVisit('2025-07-08', 24)]));
+		const a = assessBlock(
+			soybeanBlock([plantVisit('2025-07-01', 20), plantVisit('2025-07-08', 24)])
+		);
 		expect(a.level).toBe('calm');
 		expect(a.reason).toMatch(/^24 per plant/);
 	});
 
 	it('is stirring when forecast to reach 250 before the next visit, with the date in the reason', () => {
 		const [a1, a2, a3] = grow(100, [0, 4, 8], 6.5);
-		const v = [plantVisit('2025-07-01', a1), plantVisit('2025-07-05', a2), plantVisit('2025-07-09', a3)];
+		const v = [
+			plantVisit('2025-07-01', a1),
+			plantVisit('2025-07-05', a2),
+			plantVisit('2025-07-09', a3)
+		];
 		const a = assessBlock(soybeanBlock(v));
 		expect(a.level).toBe('stirring');
 		expect(a.trend!.doubling).toBeCloseTo(6.5, 0);
 		expect(a.forecast!.actionDate).toBe('2025-07-10');
-		expect(a.reason).toBe('235 per plant (100 % infested), doubling every 6.5 days; reaches 250 by 10 Jul');
+		expect(a.reason).toBe(
+			'235 per plant (100 % infested), doubling every 6.5 days; reaches 250 by 10 Jul'
+		);
 	});
 
 	it('is action due at 250 per plant, 80 % infested and rising', () => {
 		const v = [plantVisit('2025-07-01', 150), plantVisit('2025-07-05', 300)];
-		const a = assessBlock(soybeanBlock(v, { block: { areaHa: 10, plantsPerHa: 350_000, rescoutDays: 3 } }));
+		const a = assessBlock(
+			soybeanBlock(v, { block: { areaHa: 10, plantsPerHa: 350_000, rescoutDays: 3 } })
+		);
 		expect(a.level).toBe('action');
 		expect(a.label).toBe('Action due');
 	});
@@ -42,7 +52,9 @@ describe('assessBlock on soybean aphid', () => {
 	});
 
 	it('is stirring when at threshold but falling (the rule requires rising)', () => {
-		const a = assessBlock(soybeanBlock([plantVisit('2025-07-01', 400), plantVisit('2025-07-05', 300)]));
+		const a = assessBlock(
+			soybeanBlock([plantVisit('2025-07-01', 400), plantVisit('2025-07-05', 300)])
+		);
 		expect(a.level).toBe('stirring');
 		expect(a.reason).toMatch(/not rising/);
 	});
@@ -63,14 +75,18 @@ describe('assessBlock on soybean aphid', () => {
 
 	it('lowers action to stirring when more than 5 % are mummified (UK government guide)', () => {
 		const v = [plantVisit('2025-07-01', 150), { ...plantVisit('2025-07-05', 300), mummies: 600 }];
-		const a = assessBlock(soybeanBlock(v, { block: { areaHa: 10, plantsPerHa: 350_000, rescoutDays: 3 } }));
+		const a = assessBlock(
+			soybeanBlock(v, { block: { areaHa: 10, plantsPerHa: 350_000, rescoutDays: 3 } })
+		);
 		expect(a.enemies.mummyShare).toBeCloseTo(600 / 6600, 9);
 		expect(a.level).toBe('stirring');
 		expect(a.reason).toMatch(/held back/);
 	});
 
 	it('reports CAD, the empirical loss and the sap drain side by side', () => {
-		const a = assessBlock(soybeanBlock([plantVisit('2025-07-01', 250), plantVisit('2025-07-21', 250)]));
+		const a = assessBlock(
+			soybeanBlock([plantVisit('2025-07-01', 250), plantVisit('2025-07-21', 250)])
+		);
 		expect(a.cad).toBe(5000);
 		expect(a.yieldLoss!.percent).toBeCloseTo(3.44, 2);
 		// Library sap sugar is 182 g/L (Jensen et al. 2013), not the worked example's 200.
@@ -80,15 +96,26 @@ describe('assessBlock on soybean aphid', () => {
 	});
 
 	it('is plain JSON', () => {
-		const v = [plantVisit('2025-07-01', 50), plantVisit('2025-07-05', 90), plantVisit('2025-07-09', 160)];
+		const v = [
+			plantVisit('2025-07-01', 50),
+			plantVisit('2025-07-05', 90),
+			plantVisit('2025-07-09', 160)
+		];
 		const a = assessBlock(soybeanBlock(v));
 		expect(JSON.parse(JSON.stringify(a))).toEqual(a);
 	});
 
 	it('adds a degree-day trend when weather is given', () => {
-		const weather = Array.from({ length: 10 }, (_, i) => ({ date: `2025-07-0${i}`.replace('-0', '-').replace('07-', '07-0').slice(0, 10), tminC: 15, tmaxC: 29 }))
-			.map((w, i) => ({ ...w, date: `2025-07-${String(i + 1).padStart(2, '0')}` }));
-		const v = [plantVisit('2025-07-01', 50), plantVisit('2025-07-05', 90), plantVisit('2025-07-09', 160)];
+		const weather = Array.from({ length: 10 }, (_, i) => ({
+			date: `2025-07-0${i}`.replace('-0', '-').replace('07-', '07-0').slice(0, 10),
+			tminC: 15,
+			tmaxC: 29
+		})).map((w, i) => ({ ...w, date: `2025-07-${String(i + 1).padStart(2, '0')}` }));
+		const v = [
+			plantVisit('2025-07-01', 50),
+			plantVisit('2025-07-05', 90),
+			plantVisit('2025-07-09', 160)
+		];
 		const a = assessBlock(soybeanBlock(v, { weather }));
 		expect(a.trendDegreeDays!.basis).toBe('degree-days');
 		expect(a.forecast!.degreeDays!.ddPerDayRecent).toBeGreaterThan(0);
@@ -97,7 +124,11 @@ describe('assessBlock on soybean aphid', () => {
 
 describe('assessBlock on other crops', () => {
 	it('uses a proportion rule for canola (20 % of plants, Western Australia via Queensland extension)', () => {
-		const v = { date: '2025-08-01', sampleUnit: 'plant', units: Array.from({ length: 10 }, (_, i) => ({ infested: i < 3 })) };
+		const v = {
+			date: '2025-08-01',
+			sampleUnit: 'plant',
+			units: Array.from({ length: 10 }, (_, i) => ({ infested: i < 3 }))
+		};
 		const a = assessBlock({
 			asOf: '2025-08-01',
 			crop: CROPS.find((c) => c.code === 'canola')!,
@@ -130,10 +161,22 @@ describe('assessBlock input errors', () => {
 	};
 	it('names the field', () => {
 		const ok = [plantVisit('2025-07-01', 5), plantVisit('2025-07-05', 9)];
-		expect(field(() => assessBlock(soybeanBlock([ok[1], ok[0]], { asOf: '2025-07-05' })))).toBe('visits[1].date');
-		expect(field(() => assessBlock(soybeanBlock([{ ...ok[0], date: '2025-02-30' }], { asOf: '2025-07-05' })))).toBe('visits[0].date');
-		expect(field(() => assessBlock(soybeanBlock(ok, { asOf: '2025-07-03' })))).toBe('visits[1].date');
-		expect(field(() => assessBlock(soybeanBlock(ok, { block: { areaHa: 0, plantsPerHa: 1 } })))).toBe('block.areaHa');
-		expect(field(() => assessBlock(soybeanBlock([{ ...ok[0], units: [] }])))).toBe('visits[0].units');
+		expect(field(() => assessBlock(soybeanBlock([ok[1], ok[0]], { asOf: '2025-07-05' })))).toBe(
+			'visits[1].date'
+		);
+		expect(
+			field(() =>
+				assessBlock(soybeanBlock([{ ...ok[0], date: '2025-02-30' }], { asOf: '2025-07-05' }))
+			)
+		).toBe('visits[0].date');
+		expect(field(() => assessBlock(soybeanBlock(ok, { asOf: '2025-07-03' })))).toBe(
+			'visits[1].date'
+		);
+		expect(
+			field(() => assessBlock(soybeanBlock(ok, { block: { areaHa: 0, plantsPerHa: 1 } })))
+		).toBe('block.areaHa');
+		expect(field(() => assessBlock(soybeanBlock([{ ...ok[0], units: [] }])))).toBe(
+			'visits[0].units'
+		);
 	});
 });

@@ -2,21 +2,17 @@ import { cumulativeAphidDays, yieldLoss, type YieldLoss } from './cad';
 import { dayNumber } from './dates';
 import { cumulativeDd, type DdSeries } from './degreeDays';
 import { DEFAULT_ENEMY_RULES, readEnemies, type EnemyReading } from './enemies';
-import { EngineInputError, finite, positive } from './errors';
-import { fitTrends, forecastCrossings, type DatedSummary, type Forecast } from './forecast';
+import { EngineInputError, positive } from './errors';
+import { fitTrends, forecastCrossings, type Forecast } from './forecast';
 import { trendPhrase } from './format';
 import { decideLevel } from './level';
 import { LEVELS } from './levels';
 import { selectRule } from './rules';
-import { summarizeSample, type SampleSummary } from './sample';
+import type { SampleSummary } from './sample';
 import { seasonDrain, type SapDrainReport } from './seasonDrain';
 import { ZERO_HANDLING, type TrendFit } from './trend';
 import type { AssessBlockInput, Assumption, LevelKey, ThresholdRule } from './types';
-
-export interface VisitSummary extends SampleSummary {
-	id: string | number | null;
-	bbch: number | null;
-}
+import { checkVisit, prepareVisits, sameUnit, unitsPerPlantFor } from './visits';
 
 export interface Assessment {
 	asOf: string;
@@ -25,9 +21,9 @@ export interface Assessment {
 	rank: 0 | 1 | 2 | 3;
 	reason: string;
 	rule: ThresholdRule | null;
-	/** Latest density in the rule's unit (or proportion for proportion rules). */
+	/** Latest density in the rule's unit (or the proportion for proportion rules). */
 	value: number | null;
-	latest: VisitSummary | null;
+	latest: SampleSummary | null;
 	trend: TrendFit | null;
 	trendDegreeDays: TrendFit | null;
 	forecast: Forecast | null;
@@ -38,7 +34,7 @@ export interface Assessment {
 	sapDrain: SapDrainReport | null;
 	enemies: EnemyReading;
 	assumptions: Assumption[];
-	perVisit: VisitSummary[];
+	perVisit: SampleSummary[];
 }
 
 const note = (
@@ -61,51 +57,21 @@ export function assessBlock(input: AssessBlockInput): Assessment {
 	if (!Number.isInteger(window) || window < 2)
 		throw new EngineInputError('trendWindow', 'must be a whole number of 2 or more');
 	if (!Array.isArray(input.visits)) throw new EngineInputError('visits', 'must be a list');
-	const assumptions: Assumption[] = [];
-	const visits = input.visits;
-	const last = visits[visits.length - 1];
-	const uppFor = (unit: string): number | null => {
-		if (unit === 'plant') return 1;
-		if (block.unitsPerPlant !== undefined)
-			return positive(block.unitsPerPlant, 'block.unitsPerPlant');
-		return input.sampleUnits?.find((u) => u.code === unit)?.unitsPerPlantDefault ?? null;
-	};
-	if (last) {
-		dayNumber(last.date, `visits[${visits.length - 1}].date`);
-		if (last.bbch !== undefined) finite(last.bbch, `visits[${visits.length - 1}].bbch`);
-	}
+	const last = input.visits[input.visits.length - 1];
+	if (last) checkVisit(last, input.visits.length - 1);
 	const match = last
-		? selectRule(input.thresholds, crop, pest, last, uppFor(last.sampleUnit))
+		? selectRule(input.thresholds, crop, pest, last, unitsPerPlantFor(input, last.sampleUnit))
 		: null;
 	const rule = match?.rule ?? null;
-	const tally = rule?.metric === 'proportion' ? (rule.tallyThreshold ?? 1) : 1;
-	let prevDay = -Infinity;
-	const perVisit: (VisitSummary & { day: number })[] = visits.map((v, i) => {
-		const f = `visits[${i}]`;
-		const day = dayNumber(v.date, `${f}.date`);
-		if (day < prevDay) throw new EngineInputError(`${f}.date`, 'visits must be in date order');
-		if (day > asOfDay) throw new EngineInputError(`${f}.date`, 'is after asOf');
-		if (v.bbch !== undefined) finite(v.bbch, `${f}.bbch`);
-		prevDay = day;
-		const s = summarizeSample(v, {
-			tallyThreshold: tally,
-			unitsPerPlant: uppFor(v.sampleUnit),
-			field: f
-		});
-		return { ...s, id: v.id ?? null, bbch: v.bbch ?? null, day };
-	});
-	const latest = perVisit.length ? perVisit[perVisit.length - 1] : null;
+	const all = prepareVisits(
+		input,
+		asOfDay,
+		rule?.metric === 'proportion' ? (rule.tallyThreshold ?? 1) : 1
+	);
+	const same = sameUnit(all);
+	const latest = all.summaries[all.summaries.length - 1] ?? null;
 	const enemies = readEnemies(latest, input.enemyRules ?? DEFAULT_ENEMY_RULES);
-	let dd: DdSeries | null = null;
-	if (input.weather && input.weather.length) {
-		dd = cumulativeDd(input.weather, pest.baseTempC.value, pest.upperTempC?.value);
-		const b = pest.baseTempC;
-		assumptions.push(note('degree-day base', b.value, 'degC', b.source, b.provenance));
-	}
-	const same = latest ? perVisit.filter((v) => v.sampleUnit === latest.sampleUnit) : [];
-	const recent = same.slice(-window) as DatedSummary[];
-	const trends = fitTrends(recent, dd);
-	assumptions.push(
+	const assumptions: Assumption[] = [
 		note(
 			'trend',
 			`log-linear fit over the last ${window} visits`,
@@ -113,48 +79,73 @@ export function assessBlock(input: AssessBlockInput): Assessment {
 			ZERO_HANDLING,
 			'common practice'
 		)
-	);
-	const lag = latest ? asOfDay - latest.day : 0;
-	const forecast =
-		rule && match
-			? forecastCrossings(
-					rule,
-					match.factor,
-					trends.days,
-					recent,
-					input.asOf,
-					lag,
-					horizon,
-					trends.dd,
-					dd,
-					asOfDay
-				)
-			: null;
+	];
+	let dd: DdSeries | null = null;
+	if (input.weather && input.weather.length) {
+		dd = cumulativeDd(input.weather, pest.baseTempC.value, pest.upperTempC?.value);
+		assumptions.push(
+			note(
+				'degree-day base',
+				pest.baseTempC.value,
+				'degC',
+				pest.baseTempC.source,
+				pest.baseTempC.provenance
+			)
+		);
+	}
+	const recent = same.summaries.slice(-window);
+	const recentDays = same.days.slice(-window);
+	const trends = fitTrends(recent, recentDays, dd);
+	const lag = latest ? asOfDay - all.days[all.days.length - 1] : 0;
+	const forecast = match
+		? forecastCrossings(
+				match.rule,
+				match.factor,
+				trends.days,
+				recent,
+				recentDays,
+				input.asOf,
+				lag,
+				horizon,
+				trends.dd,
+				dd,
+				asOfDay
+			)
+		: null;
 	let value: number | null = null;
-	if (rule && latest)
+	if (match && latest)
 		value =
-			rule.metric === 'proportion'
+			match.rule.metric === 'proportion'
 				? latest.proportionInfested
 				: latest.mean === null
 					? null
-					: latest.mean * match!.factor;
-	if (rule) {
-		assumptions.push(note('threshold', rule.label, rule.sampleUnit, rule.source, rule.provenance));
-		if (match!.stageUnchecked)
+					: latest.mean * match.factor;
+	if (match) {
+		assumptions.push(
+			note(
+				'threshold',
+				match.rule.label,
+				match.rule.sampleUnit,
+				match.rule.source,
+				match.rule.provenance
+			)
+		);
+		if (match.stageUnchecked)
 			assumptions.push(
 				note('growth stage', 'not recorded', 'BBCH', 'stage range not checked', 'assumption')
 			);
 	}
+	const own = block.rescoutDays !== undefined;
 	assumptions.push(
 		note(
 			'forecast horizon',
 			horizon,
 			'days',
-			block.rescoutDays === undefined ? 'default re-scout interval' : 'block re-scout interval',
-			block.rescoutDays === undefined ? 'common practice' : 'assumption'
+			own ? 'block re-scout interval' : 'default re-scout interval',
+			own ? 'assumption' : 'common practice'
 		)
 	);
-	// The soybean rule's 80 % is of plants with any aphids, whatever the rule's tally.
+	// The soybean rule's 80 % is of plants with any aphids, so the tally-1 share is used.
 	const proportion =
 		rule?.alsoProportion !== undefined && latest ? latest.proportionInfested : null;
 	const decided = latest
@@ -173,18 +164,20 @@ export function assessBlock(input: AssessBlockInput): Assessment {
 				enemies
 			})
 		: { level: 'calm' as const, reason: 'No scouting visits yet' };
-	const uppLatest = latest?.unitsPerPlant ?? null;
-	const cadPoints = same.filter((v) => v.mean !== null).map((v) => ({
-		day: v.day,
-		density: v.mean === null ? 0 : v.mean * (v.unitsPerPlant ?? 1)
-	}));
+	const upp = latest?.unitsPerPlant ?? null;
+	const cadPoints: { day: number; density: number }[] = [];
+	let peak = 0;
+	same.summaries.forEach((s, i) => {
+		if (s.mean === null) return;
+		cadPoints.push({ day: same.days[i], density: s.mean * (s.unitsPerPlant ?? 1) });
+		peak = Math.max(peak, s.mean);
+	});
 	const cad = cumulativeAphidDays(cadPoints);
-	const peak = same.reduce((m, v) => Math.max(m, v.mean ?? 0), 0);
 	const loss =
-		pest.yieldLoss?.kind === 'percent-per-cad' && uppLatest === null
+		pest.yieldLoss?.kind === 'percent-per-cad' && upp === null
 			? null
 			: yieldLoss(pest, cad, peak, block.expectedYieldKgHa, block.pricePerKg);
-	const sapDrain = uppLatest === null || latest?.mean == null ? null : seasonDrain(cadPoints, input, cad);
+	const sapDrain = upp === null || latest?.mean == null ? null : seasonDrain(cadPoints, input, cad);
 	const lv = LEVELS.find((l) => l.key === decided.level)!;
 	return {
 		asOf: input.asOf,
@@ -194,24 +187,17 @@ export function assessBlock(input: AssessBlockInput): Assessment {
 		reason: decided.reason,
 		rule,
 		value,
-		latest: latest ? strip(latest) : null,
+		latest,
 		trend: trends.days,
 		trendDegreeDays: trends.dd,
 		forecast,
 		cad,
 		cadUnit:
-			uppLatest === null
-				? `aphid-days per ${latest?.sampleUnit ?? 'unit'}`
-				: 'aphid-days per plant',
+			upp === null ? `aphid-days per ${latest?.sampleUnit ?? 'unit'}` : 'aphid-days per plant',
 		yieldLoss: loss,
 		sapDrain,
 		enemies,
 		assumptions,
-		perVisit: perVisit.map(strip)
+		perVisit: all.summaries
 	};
-}
-
-function strip(v: VisitSummary & { day: number }): VisitSummary {
-	const { day: _day, ...rest } = v;
-	return rest;
 }

@@ -71,6 +71,11 @@ describe('fitting Taylor coefficients from own counts', () => {
 	});
 
 	it('needs at least three usable samples', () => {
-		expect(() => fitTaylor([[1, 2], [0, 0]])).toThrow(EngineInputError);
+		expect(() =>
+			fitTaylor([
+				[1, 2],
+				[0, 0]
+			])
+		).toThrow(EngineInputError);
 	});
 });

@@ -7,8 +7,19 @@ const greenbug = PESTS.find((p) => p.code === 'greenbug')!;
 
 describe('cumulative aphid-days', () => {
 	it('is the trapezoid area: 250 per plant for 20 days = 5,000 CAD', () => {
-		expect(cumulativeAphidDays([{ day: 0, density: 250 }, { day: 20, density: 250 }])).toBe(5000);
-		expect(cumulativeAphidDays([{ day: 0, density: 0 }, { day: 10, density: 100 }, { day: 14, density: 200 }])).toBe(1100);
+		expect(
+			cumulativeAphidDays([
+				{ day: 0, density: 250 },
+				{ day: 20, density: 250 }
+			])
+		).toBe(5000);
+		expect(
+			cumulativeAphidDays([
+				{ day: 0, density: 0 },
+				{ day: 10, density: 100 },
+				{ day: 14, density: 200 }
+			])
+		).toBe(1100);
 	});
 });
 

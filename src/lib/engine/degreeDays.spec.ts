@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { cumulativeDd, ddAt, ddCelsiusToFahrenheit, recentDdPerDay, singleSineDd } from './degreeDays';
+import {
+	cumulativeDd,
+	ddAt,
+	ddCelsiusToFahrenheit,
+	recentDdPerDay,
+	singleSineDd
+} from './degreeDays';
 import { EngineInputError } from './errors';
 
 describe('single-sine degree-days (Baskerville and Emin 1969, Ecology 50:514)', () => {
@@ -42,7 +48,15 @@ describe('single-sine degree-days (Baskerville and Emin 1969, Ecology 50:514)', 
 		);
 		expect(ddAt(s, s.firstDay + 1)).toBeCloseTo(20, 9);
 		expect(recentDdPerDay(s, s.firstDay + 1)).toBeCloseTo(10, 9);
-		expect(() => cumulativeDd([{ date: '2025-06-01', tminC: 1, tmaxC: 2 }, { date: '2025-06-03', tminC: 1, tmaxC: 2 }], 0)).toThrow(/consecutive/);
+		expect(() =>
+			cumulativeDd(
+				[
+					{ date: '2025-06-01', tminC: 1, tmaxC: 2 },
+					{ date: '2025-06-03', tminC: 1, tmaxC: 2 }
+				],
+				0
+			)
+		).toThrow(/consecutive/);
 	});
 
 	it('converts degree-days to Fahrenheit degree-days by 9/5 (common practice)', () => {

@@ -37,6 +37,10 @@ export function cumulativeDd(
 	upper?: number
 ): DdSeries {
 	if (weather.length === 0) throw new EngineInputError('weather', 'no days given');
+	finite(base, 'baseTempC');
+	if (upper !== undefined && !(finite(upper, 'upperTempC') > base)) {
+		throw new EngineInputError('upperTempC', 'must be above the base temperature');
+	}
 	const firstDay = dayNumber(weather[0].date, 'weather[0].date');
 	const cumulative = new Float64Array(weather.length);
 	let sum = 0;
@@ -46,14 +50,13 @@ export function cumulativeDd(
 		if (day !== firstDay + i) {
 			throw new EngineInputError(`weather[${i}].date`, 'days must be consecutive and in order');
 		}
-		try {
-			sum += singleSineDd(w.tminC, w.tmaxC, base, upper);
-		} catch (e) {
-			if (e instanceof EngineInputError && e.field.startsWith('t')) {
-				throw new EngineInputError(`weather[${i}].${e.field}`, e.message);
-			}
-			throw e;
-		}
+		const { tminC, tmaxC } = w;
+		if (!Number.isFinite(tminC)) finite(tminC, `weather[${i}].tminC`);
+		if (!Number.isFinite(tmaxC)) finite(tmaxC, `weather[${i}].tmaxC`);
+		if (tminC > tmaxC)
+			throw new EngineInputError(`weather[${i}].tminC`, 'minimum is above the maximum temperature');
+		sum +=
+			sineAbove(tminC, tmaxC, base) - (upper === undefined ? 0 : sineAbove(tminC, tmaxC, upper));
 		cumulative[i] = sum;
 	}
 	return { firstDay, cumulative };

@@ -5,10 +5,6 @@ import type { SampleSummary } from './sample';
 import { fitExponential, timeToReach, type TrendFit } from './trend';
 import type { ThresholdRule } from './types';
 
-export interface DatedSummary extends SampleSummary {
-	day: number;
-}
-
 export interface Forecast {
 	basis: 'days';
 	horizonDays: number;
@@ -32,18 +28,25 @@ export interface Forecast {
 
 /** Exponential fit over the latest counted visits, on days and optionally on degree-days. */
 export function fitTrends(
-	window: readonly DatedSummary[],
+	window: readonly SampleSummary[],
+	days: readonly number[],
 	dd: DdSeries | null
 ): { days: TrendFit | null; dd: TrendFit | null } {
-	const counted = window.filter((v) => v.mean !== null);
-	const days = fitExponential(counted.map((v) => ({ x: v.day, value: v.mean!, n: v.counted })));
+	const idx = window.flatMap((v, i) => (v.mean === null ? [] : [i]));
+	const byDay = fitExponential(
+		idx.map((i) => ({ x: days[i], value: window[i].mean!, n: window[i].counted }))
+	);
 	let ddFit: TrendFit | null = null;
 	if (dd) {
-		const pts = counted.map((v) => ({ x: ddAt(dd, v.day), value: v.mean!, n: v.counted }));
+		const pts = idx.map((i) => ({
+			x: ddAt(dd, days[i]),
+			value: window[i].mean!,
+			n: window[i].counted
+		}));
 		if (pts.every((p) => p.x !== null))
 			ddFit = fitExponential(pts as { x: number; value: number; n: number }[], 'degree-days');
 	}
-	return { days, dd: ddFit };
+	return { days: byDay, dd: ddFit };
 }
 
 const dateAt = (asOf: string, lag: number, d: number | null) =>
@@ -54,7 +57,8 @@ export function forecastCrossings(
 	rule: ThresholdRule,
 	factor: number,
 	trend: TrendFit | null,
-	window: readonly DatedSummary[],
+	window: readonly SampleSummary[],
+	days: readonly number[],
 	asOf: string,
 	lag: number,
 	horizonDays: number,
@@ -75,7 +79,9 @@ export function forecastCrossings(
 	};
 	const since = (d: number | null) => (d === null ? null : Math.max(0, d - lag));
 	if (rule.metric === 'proportion') {
-		const t = fitProportionTrend(window.map((v) => ({ day: v.day, infested: v.infested, n: v.n })));
+		const t = fitProportionTrend(
+			window.map((v, i) => ({ day: days[i], infested: v.infested, n: v.n }))
+		);
 		const d = t ? daysToProportion(t, rule.action) : null;
 		const di = t && rule.injury !== undefined ? daysToProportion(t, rule.injury) : null;
 		return {

@@ -9,14 +9,23 @@ import { summarizeSample } from './sample';
 import type { VisitInput } from './types';
 
 const counts = fc.array(fc.nat({ max: 2000 }), { minLength: 1, maxLength: 40 });
-const series = fc.array(fc.tuple(fc.integer({ min: 1, max: 9 }), counts), { minLength: 1, maxLength: 8 });
+const series = fc.array(fc.tuple(fc.integer({ min: 1, max: 9 }), counts), {
+	minLength: 1,
+	maxLength: 8
+});
 
 function visitsFrom(s: [number, number[]][]): VisitInput[] {
 	let day = 1;
 	return s.map(([gap, c], i) => {
 		day += gap;
 		const mummies = i % 3 === 0 ? c[0] : undefined;
-		return { date: isoPlusDays('2025-07-01', day), bbch: 65, sampleUnit: 'plant', units: c.map((aphids) => ({ aphids })), mummies };
+		return {
+			date: isoPlusDays('2025-07-01', day),
+			bbch: 65,
+			sampleUnit: 'plant',
+			units: c.map((aphids) => ({ aphids })),
+			mummies
+		};
 	});
 }
 
@@ -31,7 +40,11 @@ describe('engine properties', () => {
 	it('the 95 % CI contains the mean', () => {
 		fc.assert(
 			fc.property(counts, (c) => {
-				const s = summarizeSample({ date: '2025-07-01', sampleUnit: 'leaf', units: c.map((aphids) => ({ aphids })) });
+				const s = summarizeSample({
+					date: '2025-07-01',
+					sampleUnit: 'leaf',
+					units: c.map((aphids) => ({ aphids }))
+				});
 				if (s.ci95) expect(s.ci95[0] <= s.mean! && s.mean! <= s.ci95[1]).toBe(true);
 			})
 		);
@@ -40,7 +53,17 @@ describe('engine properties', () => {
 	it('no NaN or Infinity anywhere in an assessment of valid input', () => {
 		fc.assert(
 			fc.property(series, fc.integer({ min: 1, max: 14 }), (s, rescout) => {
-				const a = assessBlock(soybeanBlock(visitsFrom(s), { block: { areaHa: 3, plantsPerHa: 300_000, rescoutDays: rescout, expectedYieldKgHa: 3000, pricePerKg: 0.5 } }));
+				const a = assessBlock(
+					soybeanBlock(visitsFrom(s), {
+						block: {
+							areaHa: 3,
+							plantsPerHa: 300_000,
+							rescoutDays: rescout,
+							expectedYieldKgHa: 3000,
+							pricePerKg: 0.5
+						}
+					})
+				);
 				expect(allFinite(a)).toBe(true);
 			}),
 			{ numRuns: 300 }
@@ -57,8 +80,12 @@ describe('engine properties', () => {
 				const a = assessBlock(soybeanBlock(base));
 				const b = assessBlock(soybeanBlock(more));
 				expect(levelRank(b.level)).toBeGreaterThanOrEqual(levelRank(a.level));
-				expect(b.sapDrain!.daily.sapLPerHaDay).toBeGreaterThanOrEqual(a.sapDrain!.daily.sapLPerHaDay);
-				expect(b.sapDrain!.season.sapLPerHa).toBeGreaterThanOrEqual(a.sapDrain!.season.sapLPerHa - 1e-9);
+				expect(b.sapDrain!.daily.sapLPerHaDay).toBeGreaterThanOrEqual(
+					a.sapDrain!.daily.sapLPerHaDay
+				);
+				expect(b.sapDrain!.season.sapLPerHa).toBeGreaterThanOrEqual(
+					a.sapDrain!.season.sapLPerHa - 1e-9
+				);
 			}),
 			{ numRuns: 300 }
 		);

@@ -28,12 +28,26 @@ describe('summarizeSample', () => {
 
 	it('handles an all-zero sample', () => {
 		const s = summarizeSample(visit([0, 0, 0, 0]));
-		expect(s).toMatchObject({ mean: 0, sd: 0, se: 0, ci95: [0, 0], infested: 0, proportionInfested: 0 });
+		expect(s).toMatchObject({
+			mean: 0,
+			sd: 0,
+			se: 0,
+			ci95: [0, 0],
+			infested: 0,
+			proportionInfested: 0
+		});
 	});
 
 	it('gives a mean but no spread for a single unit', () => {
 		const s = summarizeSample(visit([17]));
-		expect(s).toMatchObject({ n: 1, mean: 17, sd: null, se: null, ci95: null, proportionInfested: 1 });
+		expect(s).toMatchObject({
+			n: 1,
+			mean: 17,
+			sd: null,
+			se: null,
+			ci95: null,
+			proportionInfested: 1
+		});
 	});
 
 	it('handles every unit infested', () => {

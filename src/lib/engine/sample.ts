@@ -3,7 +3,9 @@ import { tQuantile, wilson95 } from './stats';
 import type { VisitInput } from './types';
 
 export interface SampleSummary {
+	id: string | number | null;
 	date: string;
+	bbch: number | null;
 	sampleUnit: string;
 	/** Units examined (counted and presence-absence). */
 	n: number;
@@ -53,8 +55,10 @@ export function summarizeSample(visit: VisitInput, opts: SampleOptions = {}): Sa
 	let alate = 0;
 	for (let i = 0; i < units.length; i++) {
 		const u = units[i];
-		if (u.aphids !== undefined) {
-			const a = count(u.aphids, `${f}.units[${i}].aphids`);
+		const a = u.aphids;
+		if (a !== undefined) {
+			// Field names are built only on error: this loop runs for every unit of every visit.
+			if (!Number.isInteger(a) || a < 0) count(a, `${f}.units[${i}].aphids`);
 			counted++;
 			total += a;
 			// Welford: one pass, no array per visit.
@@ -62,8 +66,9 @@ export function summarizeSample(visit: VisitInput, opts: SampleOptions = {}): Sa
 			mean += delta / counted;
 			m2 += delta * (a - mean);
 			if (a >= tally) infested++;
-			if (u.alate !== undefined) {
-				const w = count(u.alate, `${f}.units[${i}].alate`);
+			const w = u.alate;
+			if (w !== undefined) {
+				if (!Number.isInteger(w) || w < 0) count(w, `${f}.units[${i}].alate`);
 				if (w > a) throw new EngineInputError(`${f}.units[${i}].alate`, 'cannot exceed aphids');
 				alate += w;
 			}
@@ -93,7 +98,9 @@ export function summarizeSample(visit: VisitInput, opts: SampleOptions = {}): Sa
 	}
 	const hasMean = counted > 0;
 	return {
+		id: visit.id ?? null,
 		date: visit.date,
+		bbch: visit.bbch ?? null,
 		sampleUnit: visit.sampleUnit,
 		n,
 		counted,

@@ -1,5 +1,11 @@
 import { describe, expect, it } from 'vitest';
-import { GLUCOSE_G_PER_MOL, sapDrainDaily, scaleDrain, SUCROSE_G_PER_MOL, SUCROSE_TO_GLUCOSE } from './sapDrain';
+import {
+	GLUCOSE_G_PER_MOL,
+	sapDrainDaily,
+	scaleDrain,
+	SUCROSE_G_PER_MOL,
+	SUCROSE_TO_GLUCOSE
+} from './sapDrain';
 import type { CropParams, FeedingParams } from './types';
 
 const s = (value: number) => ({ value, source: 'test', provenance: 'assumption' as const });
@@ -15,8 +21,20 @@ describe('molar masses from IUPAC atomic weights (computed)', () => {
 
 describe('sap drain, the sugar-to-yield worked example (computed)', () => {
 	// 0.2 mg per aphid is an assumption; 12.4 nl/mg/h from Rhodes, Croghan and Dixon 1996.
-	const feeding: FeedingParams = { morph: 'apterous', bodyMassMg: s(0.2), ingestionNlPerMgH: s(12.4), sapSugarGPerL: s(200), excretedSugarFraction: s(0.31) };
-	const soybean: CropParams = { code: 'soybean', name: 'Soybean', harvestedOrgan: 'seed', glucoseReqGPerG: s(2.0), defaultPlantsPerHa: s(350_000) };
+	const feeding: FeedingParams = {
+		morph: 'apterous',
+		bodyMassMg: s(0.2),
+		ingestionNlPerMgH: s(12.4),
+		sapSugarGPerL: s(200),
+		excretedSugarFraction: s(0.31)
+	};
+	const soybean: CropParams = {
+		code: 'soybean',
+		name: 'Soybean',
+		harvestedOrgan: 'seed',
+		glucoseReqGPerG: s(2.0),
+		defaultPlantsPerHa: s(350_000)
+	};
 	const d = sapDrainDaily(250, 350_000, feeding, soybean);
 
 	it('250 per plant x 350,000 plants: 59.5 nl per aphid, 5.2 L sap, 1.04 kg sucrose, 0.55 kg seed per ha per day', () => {

@@ -48,7 +48,12 @@ describe('Wald SPRT for counts', () => {
 		counts.forEach((x, i) => {
 			llr += lnNegBinomialPmf(x, m1, k) - lnNegBinomialPmf(x, m0, k);
 			d += x;
-			const byLr = llr >= Math.log((1 - 0.1) / 0.1) ? 'act' : llr <= Math.log(0.1 / 0.9) ? 'no-action' : 'keep-sampling';
+			const byLr =
+				llr >= Math.log((1 - 0.1) / 0.1)
+					? 'act'
+					: llr <= Math.log(0.1 / 0.9)
+						? 'no-action'
+						: 'keep-sampling';
 			expect(sprtDecide(l, i + 1, d).decision).toBe(byLr);
 		});
 	});
@@ -65,13 +70,19 @@ describe('soybean aphid speed scouting preset', () => {
 	it('reproduces the published 11-plant row: 0-6 no action, 7-10 take 5 more, 11 treat', () => {
 		for (let d = 0; d <= 6; d++) expect(batchDecide(plan, 11, d).decision).toBe('no-action');
 		for (let d = 7; d <= 10; d++) {
-			expect(batchDecide(plan, 11, d)).toMatchObject({ decision: 'keep-sampling', unitsStillNeeded: 5 });
+			expect(batchDecide(plan, 11, d)).toMatchObject({
+				decision: 'keep-sampling',
+				unitsStillNeeded: 5
+			});
 		}
 		expect(batchDecide(plan, 11, 11).decision).toBe('act');
 	});
 
 	it('asks for the first 11, completes batches and resamples after 31', () => {
-		expect(batchDecide(plan, 4, 2)).toMatchObject({ decision: 'keep-sampling', unitsStillNeeded: 7 });
+		expect(batchDecide(plan, 4, 2)).toMatchObject({
+			decision: 'keep-sampling',
+			unitsStillNeeded: 7
+		});
 		expect(batchDecide(plan, 13, 9).unitsStillNeeded).toBe(3);
 		const lines = plan.lines.value;
 		const undecided = Math.ceil(lines.slope * 31 - lines.hLower + 1e-9);

@@ -32,7 +32,11 @@ describe('t distribution', () => {
 	});
 
 	it('incomplete beta agrees with jstat', () => {
-		for (const [x, a, b] of [[0.3, 2, 5], [0.9, 0.5, 0.5], [0.01, 10, 1.5]]) {
+		for (const [x, a, b] of [
+			[0.3, 2, 5],
+			[0.9, 0.5, 0.5],
+			[0.01, 10, 1.5]
+		]) {
 			expect(incBeta(x, a, b)).toBeCloseTo(jStat.ibeta(x, a, b), 8);
 		}
 	});
@@ -40,12 +44,24 @@ describe('t distribution', () => {
 
 describe('least squares', () => {
 	it('agrees with simple-statistics', () => {
-		const pts = [[1, 2.1], [2, 3.9], [4, 8.2], [7, 13.5], [9, 19]];
-		const fit = linearFit(pts.map((p) => p[0]), pts.map((p) => p[1]))!;
+		const pts = [
+			[1, 2.1],
+			[2, 3.9],
+			[4, 8.2],
+			[7, 13.5],
+			[9, 19]
+		];
+		const fit = linearFit(
+			pts.map((p) => p[0]),
+			pts.map((p) => p[1])
+		)!;
 		const ref = linearRegression(pts);
 		expect(fit.slope).toBeCloseTo(ref.m, 12);
 		expect(fit.intercept).toBeCloseTo(ref.b, 12);
-		expect(fit.r2!).toBeCloseTo(rSquared(pts, (x) => ref.m * x + ref.b), 12);
+		expect(fit.r2!).toBeCloseTo(
+			rSquared(pts, (x) => ref.m * x + ref.b),
+			12
+		);
 	});
 
 	it('gives no fit when x does not vary', () => {

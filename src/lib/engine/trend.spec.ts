@@ -36,13 +36,20 @@ describe('exponential trend', () => {
 		expect(t.replacedZeros).toBe(1);
 		expect(t.anchor).toBeCloseTo(0.05, 12);
 		expect(t.rising).toBe(false);
-		expect(fitExponential([{ x: 0, value: 0, n: 5 }, { x: 3, value: 0, n: 5 }])).toBeNull();
+		expect(
+			fitExponential([
+				{ x: 0, value: 0, n: 5 },
+				{ x: 3, value: 0, n: 5 }
+			])
+		).toBeNull();
 	});
 
 	it('forecast from the soybean threshold agrees in magnitude with the cage time to the injury level', () => {
 		// Ragsdale et al. 2007: doubling 6.8 days; ET 250, EIL 674 per plant.
 		const r = Math.LN2 / 6.8;
-		const t = fitExponential([0, 5, 10].map((x) => ({ x, value: 250 * Math.exp(r * (x - 10)), n: 30 })))!;
+		const t = fitExponential(
+			[0, 5, 10].map((x) => ({ x, value: 250 * Math.exp(r * (x - 10)), n: 30 }))
+		)!;
 		const days = timeToReach(t, 674)!.estimate;
 		expect(days).toBeCloseTo(9.73, 2);
 		// McCarville et al. 2011, J. Econ. Entomol. 104:845: 6.97 +/- 1.11 days in enemy-free
@@ -52,7 +59,10 @@ describe('exponential trend', () => {
 	});
 
 	it('has no crossing for a falling population', () => {
-		const t = fitExponential([{ x: 0, value: 50, n: 9 }, { x: 4, value: 20, n: 9 }])!;
+		const t = fitExponential([
+			{ x: 0, value: 50, n: 9 },
+			{ x: 4, value: 20, n: 9 }
+		])!;
 		expect(timeToReach(t, 100)).toBeNull();
 		expect(t.halving).toBeGreaterThan(0);
 	});

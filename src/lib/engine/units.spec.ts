@@ -1,6 +1,12 @@
 import { describe, expect, it } from 'vitest';
 import { celsiusToFahrenheit, fahrenheitToCelsius } from './degreeDays';
-import { buPerAcreToKgPerHa, galPerAcreToLPerHa, haToAcres, kgPerHaToBuPerAcre, lPerHaToGalPerAcre } from './units';
+import {
+	buPerAcreToKgPerHa,
+	galPerAcreToLPerHa,
+	haToAcres,
+	kgPerHaToBuPerAcre,
+	lPerHaToGalPerAcre
+} from './units';
 
 describe('unit conversions', () => {
 	it('uses the exact definitions (common practice)', () => {
