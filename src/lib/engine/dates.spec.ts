@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { differenceInCalendarDays, parseISO } from 'date-fns';
-import { dayNumber, isoPlusDays, shortDate } from './dates';
+import { dayNumber, isoPlusDays, quickNextDay, shortDate } from './dates';
 import { EngineInputError } from './errors';
 
 describe('dates', () => {
@@ -23,5 +23,15 @@ describe('dates', () => {
 		expect(isoPlusDays('2025-07-09', 3)).toBe('2025-07-12');
 		expect(isoPlusDays('2024-02-28', 1)).toBe('2024-02-29');
 		expect(shortDate('2025-07-14')).toBe('14 Jul');
+	});
+});
+
+describe('quickNextDay', () => {
+	it('takes the fast path only where the successor is certain', () => {
+		const d = dayNumber('2025-02-27', 'd');
+		expect(quickNextDay('2025-02-28', '2025-02-27', d)).toBe(d + 1);
+		expect(quickNextDay('2025-02-29', '2025-02-28', d + 1)).toBe(-1);
+		expect(quickNextDay('2025-03-01', '2025-02-28', d + 1)).toBe(-1);
+		expect(quickNextDay('2025-02-2x', '2025-02-27', d)).toBe(-1);
 	});
 });

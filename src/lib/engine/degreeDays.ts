@@ -1,5 +1,5 @@
 import { EngineInputError, finite } from './errors';
-import { dayNumber } from './dates';
+import { dayNumber, quickNextDay } from './dates';
 import type { WeatherDay } from './types';
 
 // Area above `threshold` under a sine through tmin..tmax over one day (Baskerville and Emin 1969).
@@ -46,7 +46,8 @@ export function cumulativeDd(
 	let sum = 0;
 	for (let i = 0; i < weather.length; i++) {
 		const w = weather[i];
-		const day = i === 0 ? firstDay : dayNumber(w.date, `weather[${i}].date`);
+		let day = i === 0 ? firstDay : quickNextDay(w.date, weather[i - 1].date, firstDay + i - 1);
+		if (day < 0) day = dayNumber(w.date, `weather[${i}].date`);
 		if (day !== firstDay + i) {
 			throw new EngineInputError(`weather[${i}].date`, 'days must be consecutive and in order');
 		}

@@ -59,11 +59,15 @@ export function tCdf(t: number, df: number): number {
 }
 
 const quantileCache = new Map<string, number>();
+// The 95 % CI asks for p = 0.975 at small whole df on every visit: an array beats a string key.
+const t975: number[] = [];
 
 /** Student t quantile for probability p in (0, 1), by bisection on tCdf; cached. */
 export function tQuantile(p: number, df: number): number {
 	if (p === 0.5) return 0;
 	if (p < 0.5) return -tQuantile(1 - p, df);
+	const fast = p === 0.975 && Number.isInteger(df) && df < 1000;
+	if (fast && t975[df] !== undefined) return t975[df];
 	const key = `${p}|${df}`;
 	const hit = quantileCache.get(key);
 	if (hit !== undefined) return hit;
@@ -76,7 +80,8 @@ export function tQuantile(p: number, df: number): number {
 		else hi = mid;
 	}
 	const q = (lo + hi) / 2;
-	if (quantileCache.size < 10_000) quantileCache.set(key, q);
+	if (fast) t975[df] = q;
+	else if (quantileCache.size < 10_000) quantileCache.set(key, q);
 	return q;
 }
 
