@@ -104,7 +104,7 @@ export function main(
 	}
 	const blocksPerSecond = (count / totalMs) * 1000;
 	console.log(
-		`engine: ${count} blocks x ${visits} visits x ${stops} stops in ${totalMs.toFixed(0)} ms`
+		`engine: ${count} blocks x ${visits} visits x ${stops} stops in ${totalMs.toFixed(0)} ms wall, ${cpuMs.toFixed(0)} ms CPU`
 	);
 	console.log(`engine: ${blocksPerSecond.toFixed(0)} blocks/s; levels ${JSON.stringify(levels)}`);
 	return { blocksPerSecond, totalMs, cpuMs };

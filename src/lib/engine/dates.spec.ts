@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { differenceInCalendarDays, parseISO } from 'date-fns';
-import { dayNumber, isoPlusDays, quickNextDay, shortDate } from './dates';
+import { dayNumber, isoPlusDays, shortDate } from './dates';
+import { quickNextDay } from './degreeDays';
 import { EngineInputError } from './errors';
 
 describe('dates', () => {

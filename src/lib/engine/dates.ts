@@ -3,7 +3,7 @@ import { EngineInputError } from './errors';
 
 const DAYS_IN_MONTH = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
 
-function digits(s: string, from: number, to: number): number {
+export function digits(s: string, from: number, to: number): number {
 	let v = 0;
 	for (let i = from; i < to; i++) {
 		const c = s.charCodeAt(i) - 48;
@@ -34,18 +34,6 @@ export function dayNumber(iso: unknown, field: string): number {
 	const doy = Math.floor((153 * (m + (m > 2 ? -3 : 9)) + 2) / 5) + d - 1;
 	const doe = yoe * 365 + Math.floor(yoe / 4) - Math.floor(yoe / 100) + doy;
 	return era * 146097 + doe - 719468;
-}
-
-/**
- * Day number of `iso` if it is plainly the day after `prev` (day number `prevDay`), else -1 so
- * the caller does the full parse: a cheap check for long runs of daily weather.
- */
-export function quickNextDay(iso: unknown, prev: string, prevDay: number): number {
-	if (typeof iso !== 'string' || iso.length !== 10) return -1;
-	for (let i = 0; i < 8; i++) if (iso.charCodeAt(i) !== prev.charCodeAt(i)) return -1;
-	const d = digits(iso, 8, 10);
-	// Days 2 to 28 exist in every month, so a same-month successor there needs no calendar.
-	return d >= 2 && d <= 28 && d === digits(prev, 8, 10) + 1 ? prevDay + 1 : -1;
 }
 
 /** The yyyy-mm-dd date a number of days after an ISO date (calendar days, date-fns). */

@@ -1,5 +1,5 @@
 import { EngineInputError, finite } from './errors';
-import { dayNumber, quickNextDay } from './dates';
+import { dayNumber, digits } from './dates';
 import type { WeatherDay } from './types';
 
 // Area above `threshold` under a sine through tmin..tmax over one day (Baskerville and Emin 1969).
@@ -22,6 +22,19 @@ export function singleSineDd(tmin: number, tmax: number, base: number, upper?: n
 	finite(upper, 'upperTempC');
 	if (upper <= base) throw new EngineInputError('upperTempC', 'must be above the base temperature');
 	return sineAbove(tmin, tmax, base) - sineAbove(tmin, tmax, upper);
+}
+
+// Kept in this module: it runs once per weather day per block.
+/**
+ * Day number of `iso` if it is plainly the day after `prev` (day number `prevDay`), else -1 so
+ * the caller does the full parse: a cheap check for long runs of daily weather.
+ */
+export function quickNextDay(iso: unknown, prev: string, prevDay: number): number {
+	if (typeof iso !== 'string' || iso.length !== 10) return -1;
+	for (let i = 0; i < 8; i++) if (iso.charCodeAt(i) !== prev.charCodeAt(i)) return -1;
+	const d = digits(iso, 8, 10);
+	// Days 2 to 28 exist in every month, so a same-month successor there needs no calendar.
+	return d >= 2 && d <= 28 && d === digits(prev, 8, 10) + 1 ? prevDay + 1 : -1;
 }
 
 export interface DdSeries {
