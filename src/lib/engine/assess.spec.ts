@@ -180,3 +180,52 @@ describe('assessBlock input errors', () => {
 		);
 	});
 });
+
+describe('assessBlock rule choice', () => {
+	const pecan = (date: string, perLeaf: number) =>
+		assessBlock({
+			asOf: date,
+			crop: CROPS.find((c) => c.code === 'pecan')!,
+			pest: PESTS.find((p) => p.code === 'yellow-pecan-aphids')!,
+			thresholds: THRESHOLDS,
+			block: { areaHa: 12, plantsPerHa: 70 },
+			visits: [
+				{
+					date,
+					sampleUnit: 'compound-leaf',
+					units: Array.from({ length: 10 }, () => ({ aphids: perLeaf }))
+				}
+			]
+		});
+
+	it('follows the pecan calendar windows (UC IPM 2010: 20 per compound leaf to 15 Aug, 10 after)', () => {
+		expect(pecan('2025-07-20', 15).level).toBe('calm');
+		expect(pecan('2025-08-20', 15).level).toBe('action');
+		expect(
+			pecan('2025-08-20', 15).assumptions.find((a) => a.name === 'growth stage')
+		).toBeDefined();
+	});
+
+	it('gives no sap drain for leaf counts without units per plant, and says the CAD unit', () => {
+		const a = assessBlock({
+			asOf: '2025-07-20',
+			crop: CROPS.find((c) => c.code === 'cotton')!,
+			pest: PESTS.find((p) => p.code === 'cotton-aphid')!,
+			thresholds: THRESHOLDS,
+			block: { areaHa: 30, plantsPerHa: 100_000 },
+			visits: [
+				{
+					date: '2025-07-20',
+					bbch: 65,
+					sampleUnit: 'leaf',
+					units: Array.from({ length: 40 }, (_, i) => ({ aphids: i * 3 }))
+				}
+			]
+		});
+		// UC IPM; Texas extension: about 50 per leaf mid-season.
+		expect(a.value).toBe(58.5);
+		expect(a.level).toBe('action');
+		expect(a.sapDrain).toBeNull();
+		expect(a.cadUnit).toBe('aphid-days per leaf');
+	});
+});
