@@ -43,6 +43,7 @@ export function yieldLoss(
 	if (!rel) return null;
 	nonNegative(cad, 'cad');
 	const v = rel.value;
+	nonNegative(v.value, 'pest.yieldLoss.value');
 	const a: Assumption[] = [
 		{
 			name: 'yield-loss relation',

@@ -91,7 +91,49 @@ describe('engine properties', () => {
 		);
 	});
 
-	it('invalid input always throws EngineInputError with a field', () => {
+	it('each kind of invalid input throws EngineInputError naming its field', () => {
+		type Mutation = [string, (x: ReturnType<typeof soybeanBlock>) => void, RegExp];
+		const mutations: Mutation[] = [
+			['negative mummies', (x) => (x.visits[0].mummies = -3), /^visits\[0\]\.mummies$/],
+			['zero units', (x) => (x.visits[0].units = []), /^visits\[0\]\.units$/],
+			['bad date', (x) => (x.visits[0].date = '2025-13-40'), /^(visits\[0\]\.date|asOf)$/],
+			['out of order', (x) => x.visits.reverse(), /^visits\[\d+\]\.date$/],
+			['no area', (x) => (x.block.areaHa = 0), /^block\.areaHa$/],
+			[
+				'predators',
+				(x) => (x.visits[0].predators = { ladybeetle: 1.5 }),
+				/^visits\[0\]\.predators\.ladybeetle$/
+			],
+			[
+				'hot night',
+				(x) => (x.weather = [{ date: x.visits[0].date, tminC: 30, tmaxC: 20 }]),
+				/^weather\[0\]\.tminC$/
+			],
+			[
+				'edited rule',
+				(x) => (x.thresholds = [{ ...x.thresholds[0], action: -5 }]),
+				/^thresholds\[0\]\.action$/
+			]
+		];
+		fc.assert(
+			fc.property(series, fc.constantFrom(...mutations), (s, [, mutate, field]) => {
+				const input = soybeanBlock(visitsFrom(s));
+				const before = input.visits.map((v) => v.date).join();
+				mutate(input);
+				if (input.visits.map((v) => v.date).join() === before && field.source.includes('date'))
+					return;
+				try {
+					assessBlock(input);
+					expect.unreachable('should have thrown');
+				} catch (e) {
+					expect(e).toBeInstanceOf(EngineInputError);
+					expect((e as EngineInputError).field).toMatch(field);
+				}
+			})
+		);
+	});
+
+	it('invalid counts always throw EngineInputError with a field', () => {
 		const bad = fc.oneof(
 			fc.constant(-1),
 			fc.constant(2.5),
