@@ -15,7 +15,10 @@ export default ts.config(
 		languageOptions: { globals: { ...globals.browser, ...globals.node } },
 		rules: {
 			'no-undef': 'off',
-			'@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+			'@typescript-eslint/no-unused-vars': [
+				'error',
+				{ argsIgnorePattern: '^_', varsIgnorePattern: '^_' }
+			],
 			'svelte/no-navigation-without-resolve': 'off'
 		}
 	},
@@ -31,6 +34,14 @@ export default ts.config(
 		}
 	},
 	{
-		ignores: ['build/', 'build-*/', '.svelte-kit/', '.svelte-kit-*/', '.data/', 'node_modules/', 'static/']
+		ignores: [
+			'build/',
+			'build-*/',
+			'.svelte-kit/',
+			'.svelte-kit-*/',
+			'.data/',
+			'node_modules/',
+			'static/'
+		]
 	}
 );

@@ -40,5 +40,7 @@ export const handle = sequence(authHandle, loadUser, guard);
 
 export const handleError: HandleServerError = ({ error, status, message }) => {
 	if (status >= 500) console.error(error);
-	return { message: status >= 500 ? 'Something went wrong on our side. Try again in a moment.' : message };
+	return {
+		message: status >= 500 ? 'Something went wrong on our side. Try again in a moment.' : message
+	};
 };

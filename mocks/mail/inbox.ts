@@ -1,8 +1,7 @@
 import type { IncomingMessage, ServerResponse } from 'node:http';
 import type { MailStore, StoredMail } from './store';
 
-const esc = (s: string) =>
-	s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
+const esc = (s: string) => s.replace(/[&<>"']/g, (c) => `&#${c.charCodeAt(0)};`);
 
 const page = (title: string, body: string) => `<!doctype html><html lang="en"><head>
 <meta charset="utf-8"><meta name="viewport" content="width=device-width,initial-scale=1">
@@ -62,10 +61,14 @@ export function inboxHandler(store: MailStore) {
 		}
 		if (one) {
 			const m = store.get(Number(one[2]));
-			if (!m) return one[1] ? json(404, { error: 'not found' }) : html(404, page('Not found', '<p>No such message.</p>'));
+			if (!m)
+				return one[1]
+					? json(404, { error: 'not found' })
+					: html(404, page('Not found', '<p>No such message.</p>'));
 			return one[1] ? json(200, m) : html(200, messageHtml(m));
 		}
-		if (url.pathname === '/') return html(200, listHtml(store.list(url.searchParams.get('to') ?? undefined)));
+		if (url.pathname === '/')
+			return html(200, listHtml(store.list(url.searchParams.get('to') ?? undefined)));
 		return html(404, page('Not found', '<p>Not found.</p>'));
 	};
 }

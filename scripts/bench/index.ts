@@ -1,14 +1,27 @@
 import { join } from 'node:path';
 import { runCommand } from '../lib/procs';
-import { root, type Profile } from '../lib/profile';
+import { profileEnv, root, type Profile } from '../lib/profile';
+import { startServices } from '../lib/stack';
 
-/** `npm run bench`: each benchmark script in turn, printing its own figures. */
-export async function runBench(_p: Profile, _args: string[]): Promise<number> {
+/** Benchmark scripts, each printing its own figures; add new ones here. */
+export const BENCHES = ['scripts/bench/engine.ts'];
+
+/**
+ * `npm run bench`: starts the fakes and the built app on the bench database, then runs each
+ * benchmark script with BENCH_APP_URL and DATABASE_URL set. `npm run bench -- engine` runs the
+ * scripts whose path contains "engine".
+ */
+export async function runBench(p: Profile, args: string[]): Promise<number> {
 	const tsx = join(root, 'node_modules/.bin/tsx');
+	const env = await startServices(p, { quiet: true });
 	let failed = 0;
-	for (const script of ['scripts/bench/engine.ts']) {
+	for (const script of BENCHES.filter((s) => !args.length || args.some((a) => s.includes(a)))) {
 		console.log(`\n• ${script}`);
-		if ((await runCommand(tsx, [script], { cwd: root })) !== 0) failed++;
+		const code = await runCommand(tsx, [script], {
+			cwd: root,
+			env: { ...process.env, ...profileEnv(p), BENCH_APP_URL: env.ORIGIN }
+		});
+		if (code !== 0) failed++;
 	}
 	return failed ? 1 : 0;
 }

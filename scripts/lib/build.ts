@@ -30,10 +30,14 @@ export async function ensureBuild(slot?: string): Promise<string> {
 	if (existsSync(stamp) && statSync(stamp).mtimeMs > inputs) return out;
 	console.log('• Building the app');
 	const env = { ...process.env, ...(slot ? { CORNICLE_SLOT: slot } : {}) };
-	const code = await runCommand(join(root, 'node_modules/.bin/vite'), ['build', '--logLevel', 'warn'], {
-		cwd: root,
-		env
-	});
+	const code = await runCommand(
+		join(root, 'node_modules/.bin/vite'),
+		['build', '--logLevel', 'warn'],
+		{
+			cwd: root,
+			env
+		}
+	);
 	if (code !== 0) throw new Error('vite build failed');
 	writeFileSync(stamp, new Date().toISOString());
 	return out;

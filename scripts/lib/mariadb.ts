@@ -12,7 +12,8 @@ export interface MariaDB {
 }
 
 function bin(name: string) {
-	for (const dir of ['/usr/sbin', '/usr/bin']) if (existsSync(join(dir, name))) return join(dir, name);
+	for (const dir of ['/usr/sbin', '/usr/bin'])
+		if (existsSync(join(dir, name))) return join(dir, name);
 	throw new Error(`${name} not found: install mariadb-server from Debian's packages`);
 }
 
@@ -116,9 +117,13 @@ export async function startMariaDB(
 		async stop() {
 			if (!ours && process.env.CORNICLE_KEEP_DB) return;
 			const pid = existsSync(pidFile) ? Number(readFileSync(pidFile, 'utf8').trim()) : 0;
-			spawnSync(bin('mariadb-admin'), ['--no-defaults', `--socket=${socket}`, '-uroot', 'shutdown'], {
-				stdio: 'ignore'
-			});
+			spawnSync(
+				bin('mariadb-admin'),
+				['--no-defaults', `--socket=${socket}`, '-uroot', 'shutdown'],
+				{
+					stdio: 'ignore'
+				}
+			);
 			const until = Date.now() + 30_000;
 			while (pid && alive(pid) && Date.now() < until) await sleep(100);
 		}

@@ -26,7 +26,12 @@ export interface ReassessOptions {
 }
 
 /** Threshold rules for a crop and pest: the organisation's own where it has any, else the library's. */
-export async function rulesFor(organisationId: number, cropId: number, pestId: number, transaction?: Transaction) {
+export async function rulesFor(
+	organisationId: number,
+	cropId: number,
+	pestId: number,
+	transaction?: Transaction
+) {
 	const rows = await ThresholdRule.findAll({
 		where: {
 			cropId,
@@ -41,7 +46,9 @@ export async function rulesFor(organisationId: number, cropId: number, pestId: n
 	return (own.length ? own : rows).map(toEngineRule);
 }
 
-function toEngineRule(r: ThresholdRule & { sampleUnit?: SampleUnit }): Omit<EngineRule, 'cropCode' | 'pestCode'> {
+function toEngineRule(
+	r: ThresholdRule & { sampleUnit?: SampleUnit }
+): Omit<EngineRule, 'cropCode' | 'pestCode'> {
 	return {
 		bbchFrom: r.bbchFrom,
 		bbchTo: r.bbchTo,
@@ -132,15 +139,24 @@ const iso = (d: Date) => d.toISOString().slice(0, 10);
  * Runs the engine for a block, stores the assessment with its inputs, updates the block's
  * current level and hands a change of level to the alerts entry point.
  */
-export async function reassessBlock(blockId: number, opts: ReassessOptions = {}): Promise<EngineAssessment> {
+export async function reassessBlock(
+	blockId: number,
+	opts: ReassessOptions = {}
+): Promise<EngineAssessment> {
 	const today = iso(opts.today ?? new Date());
 	const t = opts.transaction;
 	const { block, input } = await engineInput(blockId, today, t);
-	const rows: { visitId: number | null; asOf: string; result: EngineAssessment; inputs: object }[] = [];
+	const rows: { visitId: number | null; asOf: string; result: EngineAssessment; inputs: object }[] =
+		[];
 	if (opts.history) {
 		for (let i = 0; i < input.visits.length; i++) {
 			const sub = { ...input, asOf: input.visits[i].date, visits: input.visits.slice(0, i + 1) };
-			rows.push({ visitId: Number(input.visits[i].id), asOf: sub.asOf, result: assessBlock(sub), inputs: sub });
+			rows.push({
+				visitId: Number(input.visits[i].id),
+				asOf: sub.asOf,
+				result: assessBlock(sub),
+				inputs: sub
+			});
 		}
 	}
 	const latest = assessBlock(input);
@@ -176,4 +192,3 @@ export async function reassessBlock(blockId: number, opts: ReassessOptions = {})
 	}
 	return latest;
 }
-

@@ -24,6 +24,12 @@ export const { handle, signIn, signOut } = SvelteKitAuth(async (event) => {
 		secret: c.AUTH_SECRET,
 		trustHost: true,
 		session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
+		logger: {
+			// A failed password is an expected outcome, not a server error worth a stack trace.
+			error(e: Error) {
+				if ((e as Error & { type?: string }).type !== 'CredentialsSignin') console.error(e);
+			}
+		},
 		pages: { signIn: '/signin', error: '/signin', verifyRequest: '/signin/check-email' },
 		providers: [
 			Credentials({

@@ -26,3 +26,29 @@ export async function levelChanged(change: LevelChange) {
 		{ transaction: change.transaction }
 	);
 }
+
+export interface RecommendationEvent {
+	recommendationId: number;
+	blockId: number;
+	organisationId: number;
+	actorId: number;
+	transaction?: Transaction;
+}
+
+/**
+ * The single place an issued recommendation goes (to the grower's alerts). Runs inside the
+ * caller's transaction.
+ */
+export async function recommendationIssued(e: RecommendationEvent) {
+	await AuditLog.create(
+		{
+			organisationId: e.organisationId,
+			actorId: e.actorId,
+			action: 'recommendation-issued',
+			entity: 'recommendation',
+			entityId: String(e.recommendationId),
+			details: { blockId: e.blockId }
+		},
+		{ transaction: e.transaction }
+	);
+}

@@ -9,7 +9,10 @@ export function requireRole(event: Pick<RequestEvent, 'locals' | 'url'>, ...role
 	const user = event.locals.user;
 	if (!user) {
 		if (event.url.pathname.startsWith('/api/')) error(401, 'Sign in to use this endpoint.');
-		redirect(303, `/signin?redirectTo=${encodeURIComponent(event.url.pathname + event.url.search)}`);
+		redirect(
+			303,
+			`/signin?redirectTo=${encodeURIComponent(event.url.pathname + event.url.search)}`
+		);
 	}
 	if (roles.length && !roles.includes(user.role)) {
 		error(403, {

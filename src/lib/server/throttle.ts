@@ -6,7 +6,11 @@ export const MAX_FAILURES_PER_EMAIL = 5;
 export const MAX_FAILURES_PER_IP = 30;
 
 /** Minutes until sign-in is allowed again for this e-mail or address, or 0 when not locked. */
-export async function lockedForMinutes(email: string, ip: string, now = new Date()): Promise<number> {
+export async function lockedForMinutes(
+	email: string,
+	ip: string,
+	now = new Date()
+): Promise<number> {
 	const since = new Date(now.getTime() - LOCK_WINDOW_MS);
 	const [byEmail, byIp] = await Promise.all([
 		LoginAttempt.findAll({

@@ -1,6 +1,7 @@
 import { fail, isRedirect, redirect } from '@sveltejs/kit';
 import { message, setError, superValidate } from 'sveltekit-superforms';
 import { zod4 } from 'sveltekit-superforms/adapters';
+import { AuthError } from '@auth/sveltekit';
 import { signIn } from '$lib/server/auth';
 import { lockedForMinutes } from '$lib/server/throttle';
 import { HOME_BY_ROLE } from '$lib/roles';
@@ -36,9 +37,12 @@ async function authSignIn(event: Parameters<Actions[string]>[0]): Promise<string
 	try {
 		await signIn(event);
 	} catch (e) {
+		// Auth.js throws its sign-in errors (with a code) rather than redirecting in this mode.
+		if (e instanceof AuthError) return (e as AuthError & { code?: string }).code ?? e.type;
 		if (!isRedirect(e)) throw e;
 		const to = new URL(e.location, event.url);
-		if (to.searchParams.get('error')) return to.searchParams.get('code') ?? to.searchParams.get('error');
+		if (to.searchParams.get('error'))
+			return to.searchParams.get('code') ?? to.searchParams.get('error');
 		throw e;
 	}
 	return null;
@@ -50,7 +54,10 @@ export const actions: Actions = {
 		if (!form.valid) return fail(400, { passwordForm: form });
 		const code = await authSignIn(event);
 		if (code === 'locked') {
-			const minutes = await lockedForMinutes(form.data.email.toLowerCase(), event.getClientAddress());
+			const minutes = await lockedForMinutes(
+				form.data.email.toLowerCase(),
+				event.getClientAddress()
+			);
 			return message(
 				form,
 				`Too many failed attempts for this account. Try again in ${Math.max(minutes, 1)} minute(s), or use a sign-in link.`,

@@ -31,12 +31,12 @@ export function connect(opts: ConnectOptions): Sequelize {
 		port: main.port,
 		logging: opts.logging ? console.log : false,
 		pool: opts.pool ?? { max: 10, min: 0, acquire: 10_000, idle: 10_000 },
-		dialectOptions: { connectTimeout: 5_000, timezone: 'Etc/GMT0' },
+		dialectOptions: { connectTimeout: 5_000 },
 		timezone: '+00:00',
 		define: { underscored: true },
-		replication: opts.replicaUrls?.length
-			? { write: main, read: opts.replicaUrls.map(parts) }
-			: undefined
+		...(opts.replicaUrls?.length
+			? { replication: { write: main, read: opts.replicaUrls.map(parts) } }
+			: {})
 	});
 	initModels(sequelize);
 	return sequelize;

@@ -9,7 +9,10 @@ import {
 import type { LevelKey } from '../../../engine';
 import { LEVEL_KEYS } from '../../../domain';
 
-export class Assessment extends Model<InferAttributes<Assessment>, InferCreationAttributes<Assessment>> {
+export class Assessment extends Model<
+	InferAttributes<Assessment>,
+	InferCreationAttributes<Assessment>
+> {
 	declare id: CreationOptional<number>;
 	declare blockId: number;
 	declare visitId: CreationOptional<number | null>;

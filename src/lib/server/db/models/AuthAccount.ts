@@ -7,7 +7,10 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-export class AuthAccount extends Model<InferAttributes<AuthAccount>, InferCreationAttributes<AuthAccount>> {
+export class AuthAccount extends Model<
+	InferAttributes<AuthAccount>,
+	InferCreationAttributes<AuthAccount>
+> {
 	declare id: CreationOptional<number>;
 	declare userId: number;
 	declare type: string;

@@ -7,7 +7,10 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-export class AuthSession extends Model<InferAttributes<AuthSession>, InferCreationAttributes<AuthSession>> {
+export class AuthSession extends Model<
+	InferAttributes<AuthSession>,
+	InferCreationAttributes<AuthSession>
+> {
 	declare id: CreationOptional<number>;
 	declare userId: number;
 	declare sessionToken: string;

@@ -1,13 +1,15 @@
 import {
 	DataTypes,
 	Model,
-	type CreationOptional,
 	type InferAttributes,
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
 
-export class AuthVerificationToken extends Model<InferAttributes<AuthVerificationToken>, InferCreationAttributes<AuthVerificationToken>> {
+export class AuthVerificationToken extends Model<
+	InferAttributes<AuthVerificationToken>,
+	InferCreationAttributes<AuthVerificationToken>
+> {
 	declare identifier: string;
 	declare token: string;
 	declare expires: Date;

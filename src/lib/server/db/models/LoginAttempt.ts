@@ -7,7 +7,10 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-export class LoginAttempt extends Model<InferAttributes<LoginAttempt>, InferCreationAttributes<LoginAttempt>> {
+export class LoginAttempt extends Model<
+	InferAttributes<LoginAttempt>,
+	InferCreationAttributes<LoginAttempt>
+> {
 	declare id: CreationOptional<number>;
 	declare email: string;
 	declare ip: string;
@@ -23,7 +26,13 @@ export class LoginAttempt extends Model<InferAttributes<LoginAttempt>, InferCrea
 				succeeded: { type: DataTypes.BOOLEAN, allowNull: false },
 				createdAt: DataTypes.DATE(3)
 			},
-			{ sequelize, tableName: 'login_attempts', underscored: true, timestamps: true, updatedAt: false }
+			{
+				sequelize,
+				tableName: 'login_attempts',
+				underscored: true,
+				timestamps: true,
+				updatedAt: false
+			}
 		);
 	}
 }

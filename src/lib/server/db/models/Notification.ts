@@ -8,7 +8,10 @@ import {
 } from 'sequelize';
 import { NOTIFICATION_STATUSES, type Channel, type NotificationStatus } from '../../../domain';
 
-export class Notification extends Model<InferAttributes<Notification>, InferCreationAttributes<Notification>> {
+export class Notification extends Model<
+	InferAttributes<Notification>,
+	InferCreationAttributes<Notification>
+> {
 	declare id: CreationOptional<number>;
 	declare organisationId: number;
 	declare userId: CreationOptional<number | null>;
@@ -48,7 +51,11 @@ export class Notification extends Model<InferAttributes<Notification>, InferCrea
 				subject: { type: DataTypes.STRING(300), allowNull: true },
 				bodyText: { type: DataTypes.TEXT, allowNull: false },
 				bodyHtml: { type: DataTypes.TEXT, allowNull: true },
-				status: { type: DataTypes.ENUM(...NOTIFICATION_STATUSES), allowNull: false, defaultValue: 'pending' },
+				status: {
+					type: DataTypes.ENUM(...NOTIFICATION_STATUSES),
+					allowNull: false,
+					defaultValue: 'pending'
+				},
 				attempts: { type: DataTypes.SMALLINT, allowNull: false, defaultValue: 0 },
 				notBefore: { type: DataTypes.DATE(3), allowNull: false },
 				claimedBy: { type: DataTypes.STRING(80), allowNull: true },

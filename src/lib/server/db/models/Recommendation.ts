@@ -6,9 +6,18 @@ import {
 	type InferCreationAttributes,
 	type Sequelize
 } from 'sequelize';
-import { DECISIONS, RECOMMENDATION_STATUSES, type Decision, type RecommendationStatus, type RecommendationWarning } from '../../../domain';
+import {
+	DECISIONS,
+	RECOMMENDATION_STATUSES,
+	type Decision,
+	type RecommendationStatus,
+	type RecommendationWarning
+} from '../../../domain';
 
-export class Recommendation extends Model<InferAttributes<Recommendation>, InferCreationAttributes<Recommendation>> {
+export class Recommendation extends Model<
+	InferAttributes<Recommendation>,
+	InferCreationAttributes<Recommendation>
+> {
 	declare id: CreationOptional<number>;
 	declare organisationId: number;
 	declare blockId: number;
@@ -45,7 +54,11 @@ export class Recommendation extends Model<InferAttributes<Recommendation>, Infer
 				rescoutBy: { type: DataTypes.DATEONLY, allowNull: true },
 				notes: { type: DataTypes.TEXT, allowNull: true },
 				warnings: { type: DataTypes.JSON, allowNull: false },
-				status: { type: DataTypes.ENUM(...RECOMMENDATION_STATUSES), allowNull: false, defaultValue: 'draft' },
+				status: {
+					type: DataTypes.ENUM(...RECOMMENDATION_STATUSES),
+					allowNull: false,
+					defaultValue: 'draft'
+				},
 				issuedAt: { type: DataTypes.DATE, allowNull: true },
 				acknowledgedAt: { type: DataTypes.DATE, allowNull: true },
 				appliedOn: { type: DataTypes.DATEONLY, allowNull: true },

@@ -7,7 +7,10 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-export class SampleUnit extends Model<InferAttributes<SampleUnit>, InferCreationAttributes<SampleUnit>> {
+export class SampleUnit extends Model<
+	InferAttributes<SampleUnit>,
+	InferCreationAttributes<SampleUnit>
+> {
 	declare id: CreationOptional<number>;
 	declare code: string;
 	declare name: string;

@@ -7,7 +7,10 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-export class ScoutingAssignment extends Model<InferAttributes<ScoutingAssignment>, InferCreationAttributes<ScoutingAssignment>> {
+export class ScoutingAssignment extends Model<
+	InferAttributes<ScoutingAssignment>,
+	InferCreationAttributes<ScoutingAssignment>
+> {
 	declare id: CreationOptional<number>;
 	declare blockId: number;
 	declare scoutId: number;

@@ -9,7 +9,10 @@ import {
 import type { LevelKey } from '../../../engine';
 import { LEVEL_KEYS, type Channel } from '../../../domain';
 
-export class Subscription extends Model<InferAttributes<Subscription>, InferCreationAttributes<Subscription>> {
+export class Subscription extends Model<
+	InferAttributes<Subscription>,
+	InferCreationAttributes<Subscription>
+> {
 	declare id: CreationOptional<number>;
 	declare userId: number;
 	declare farmId: CreationOptional<number | null>;

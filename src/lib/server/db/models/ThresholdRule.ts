@@ -9,7 +9,10 @@ import {
 import type { Provenance } from '../../../engine';
 import { PROVENANCE } from '../../../domain';
 
-export class ThresholdRule extends Model<InferAttributes<ThresholdRule>, InferCreationAttributes<ThresholdRule>> {
+export class ThresholdRule extends Model<
+	InferAttributes<ThresholdRule>,
+	InferCreationAttributes<ThresholdRule>
+> {
 	declare id: CreationOptional<number>;
 	declare organisationId: CreationOptional<number | null>;
 	declare cropId: number;

@@ -7,7 +7,10 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-export class TrapReading extends Model<InferAttributes<TrapReading>, InferCreationAttributes<TrapReading>> {
+export class TrapReading extends Model<
+	InferAttributes<TrapReading>,
+	InferCreationAttributes<TrapReading>
+> {
 	declare id: CreationOptional<number>;
 	declare trapId: number;
 	declare scoutId: number;

@@ -7,7 +7,10 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-export class VisitCount extends Model<InferAttributes<VisitCount>, InferCreationAttributes<VisitCount>> {
+export class VisitCount extends Model<
+	InferAttributes<VisitCount>,
+	InferCreationAttributes<VisitCount>
+> {
 	declare id: CreationOptional<number>;
 	declare visitId: number;
 	declare stopNo: number;

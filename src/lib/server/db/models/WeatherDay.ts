@@ -7,7 +7,10 @@ import {
 	type Sequelize
 } from 'sequelize';
 
-export class WeatherDay extends Model<InferAttributes<WeatherDay>, InferCreationAttributes<WeatherDay>> {
+export class WeatherDay extends Model<
+	InferAttributes<WeatherDay>,
+	InferCreationAttributes<WeatherDay>
+> {
 	declare id: CreationOptional<number>;
 	declare farmId: number;
 	declare day: string;

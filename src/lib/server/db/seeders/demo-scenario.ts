@@ -32,7 +32,9 @@ export interface DemoFarm {
 
 export const REGION = 'Willowmere Valley';
 
-const soy = (b: Partial<DemoBlock> & Pick<DemoBlock, 'name' | 'at' | 'start' | 'growth' | 'scout'>): DemoBlock => ({
+const soy = (
+	b: Partial<DemoBlock> & Pick<DemoBlock, 'name' | 'at' | 'start' | 'growth' | 'scout'>
+): DemoBlock => ({
 	crop: 'soybean',
 	pest: 'soybean-aphid',
 	size: [0.8, 0.6],
@@ -78,7 +80,14 @@ export const FARMS: DemoFarm[] = [
 		lat: 47.183,
 		lon: -96.884,
 		blocks: [
-			soy({ name: 'River Flat', at: [0, 0], size: [1.1, 0.7], start: 12, growth: 0.095, scout: 'scout2' }),
+			soy({
+				name: 'River Flat',
+				at: [0, 0],
+				size: [1.1, 0.7],
+				start: 12,
+				growth: 0.095,
+				scout: 'scout2'
+			}),
 			{
 				name: 'Seed Potatoes East',
 				crop: 'potato-seed',

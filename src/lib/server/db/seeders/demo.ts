@@ -28,7 +28,11 @@ import { rng } from './random';
 const ORGS = {
 	brackenridge: { name: 'Brackenridge Crop Advisory', slug: 'brackenridge', kind: 'advisory' },
 	ostrander: { name: 'Ostrander Growers Co-op', slug: 'ostrander', kind: 'coop' },
-	extension: { name: 'Willowmere Extension District', slug: 'willowmere-extension', kind: 'extension' }
+	extension: {
+		name: 'Willowmere Extension District',
+		slug: 'willowmere-extension',
+		kind: 'extension'
+	}
 } as const;
 
 /**
@@ -76,7 +80,7 @@ export async function seedDemo(sequelize: Sequelize, today = new Date()): Promis
 			);
 		}
 
-		const seasonStart = subDays(today, 58);
+		const seasonStart = subDays(today, 54);
 		for (const farm of FARMS) {
 			const f = await Farm.create(
 				{
@@ -171,7 +175,15 @@ export async function seedDemo(sequelize: Sequelize, today = new Date()): Promis
 				// Some blocks are overdue (last visit 9+ days ago), most were seen this week.
 				const offset = r.int(0, 4);
 				const n = b.name === 'South Soy' ? 6 : 8;
-				for (const v of demoVisits(r, b.crop, b.start, b.growth, addDays(seasonStart, offset), n, 7)) {
+				for (const v of demoVisits(
+					r,
+					b.crop,
+					b.start,
+					b.growth,
+					addDays(seasonStart, offset),
+					n,
+					7
+				)) {
 					const visit = await Visit.create(
 						{
 							blockId: block.id,
@@ -203,7 +215,13 @@ export async function seedDemo(sequelize: Sequelize, today = new Date()): Promis
 		for (const key of ['grower1', 'grower2', 'agronomist']) {
 			await Subscription.bulkCreate(
 				[
-					{ userId: userId[key], channel: 'sms', minLevel: 'action', quietStart: '21:00', quietEnd: '06:30' },
+					{
+						userId: userId[key],
+						channel: 'sms',
+						minLevel: 'action',
+						quietStart: '21:00',
+						quietEnd: '06:30'
+					},
 					{ userId: userId[key], channel: 'email', minLevel: 'stirring' }
 				],
 				{ transaction }

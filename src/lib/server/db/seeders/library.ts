@@ -29,7 +29,11 @@ export async function seedLibrary(transaction: Transaction) {
 	for (const u of SAMPLE_UNITS) {
 		const [row] = await SampleUnit.findOrCreate({
 			where: { code: u.code },
-			defaults: { code: u.code, name: u.name, unitsPerPlantDefault: u.unitsPerPlantDefault ?? null },
+			defaults: {
+				code: u.code,
+				name: u.name,
+				unitsPerPlantDefault: u.unitsPerPlantDefault ?? null
+			},
 			transaction
 		});
 		units.set(u.code, row.id);

@@ -37,6 +37,12 @@ export function rng(seed: number) {
 	};
 	/** Negative-binomial count with mean m and aggregation k (a gamma-Poisson mixture). */
 	const negbin = (m: number, k: number) => poisson(gamma(k) * (m / k));
-	return { next, normal, poisson, negbin, int: (lo: number, hi: number) => lo + Math.floor(next() * (hi - lo + 1)) };
+	return {
+		next,
+		normal,
+		poisson,
+		negbin,
+		int: (lo: number, hi: number) => lo + Math.floor(next() * (hi - lo + 1))
+	};
 }
 export type Rng = ReturnType<typeof rng>;

@@ -1,0 +1,36 @@
+// Who may open each page and endpoint. The route-walk test reads the route tree and fails for
+// any route missing here, so a new route cannot forget its guard. Paths with {placeholders}
+// are filled from the demo scenario (see helpers/fixtures.ts) with records the role may see.
+import type { Role } from '../src/lib/roles';
+
+export const ALL_ROLES: Role[] = ['admin', 'agronomist', 'scout', 'grower', 'regional'];
+
+export interface AccessRule {
+	/** The URL to probe; defaults to the route id without groups. */
+	path?: string;
+	/** Roles that get in; everyone else must be refused (403, or 404 for records they cannot see). */
+	roles: Role[];
+}
+
+/** Pages under src/routes/(app), by route id. */
+export const PAGES: Record<string, AccessRule> = {
+	'/(app)/desk': { roles: ['agronomist', 'admin'] },
+	'/(app)/rounds': { roles: ['scout'] },
+	'/(app)/my-farms': { roles: ['grower'] },
+	'/(app)/region': { roles: ['regional'] },
+	'/(app)/admin/people': { roles: ['admin'] }
+};
+
+/** Endpoints under src/routes/api that need a signed-in user, by "METHOD route id". */
+export const ENDPOINTS: Record<string, AccessRule> = {
+	'GET /api/me': { roles: ALL_ROLES }
+};
+
+/** Routes anyone may reach, signed in or not (each listed with why). */
+export const PUBLIC: Record<string, string> = {
+	'/': 'landing page',
+	'/signin': 'sign-in',
+	'/signin/check-email': 'sign-in link sent',
+	'/signout': 'sign-out action',
+	'GET /api/health': 'load balancer health check'
+};
