@@ -1,4 +1,5 @@
-import { cumulativeAphidDays, yieldLoss, type YieldLoss } from './cad';
+import type { YieldLoss } from './cad';
+import { seasonCosts } from './costs';
 import { dayNumber } from './dates';
 import { cumulativeDd, type DdSeries } from './degreeDays';
 import { DEFAULT_ENEMY_RULES, readEnemies, type EnemyReading } from './enemies';
@@ -9,7 +10,7 @@ import { decideLevel } from './level';
 import { LEVELS } from './levels';
 import { selectRule } from './rules';
 import type { SampleSummary } from './sample';
-import { seasonDrain, type SapDrainReport } from './seasonDrain';
+import type { SapDrainReport } from './seasonDrain';
 import { ZERO_HANDLING, type TrendFit } from './trend';
 import type { AssessBlockInput, Assumption, LevelKey, ThresholdRule } from './types';
 import { checkVisit, prepareVisits, sameUnit, unitsPerPlantFor } from './visits';
@@ -164,20 +165,7 @@ export function assessBlock(input: AssessBlockInput): Assessment {
 				enemies
 			})
 		: { level: 'calm' as const, reason: 'No scouting visits yet' };
-	const upp = latest?.unitsPerPlant ?? null;
-	const cadPoints: { day: number; density: number }[] = [];
-	let peak = 0;
-	same.summaries.forEach((s, i) => {
-		if (s.mean === null) return;
-		cadPoints.push({ day: same.days[i], density: s.mean * (s.unitsPerPlant ?? 1) });
-		peak = Math.max(peak, s.mean);
-	});
-	const cad = cumulativeAphidDays(cadPoints);
-	const loss =
-		pest.yieldLoss?.kind === 'percent-per-cad' && upp === null
-			? null
-			: yieldLoss(pest, cad, peak, block.expectedYieldKgHa, block.pricePerKg);
-	const sapDrain = upp === null || latest?.mean == null ? null : seasonDrain(cadPoints, input, cad);
+	const costs = seasonCosts(same, input, latest);
 	const lv = LEVELS.find((l) => l.key === decided.level)!;
 	return {
 		asOf: input.asOf,
@@ -191,11 +179,7 @@ export function assessBlock(input: AssessBlockInput): Assessment {
 		trend: trends.days,
 		trendDegreeDays: trends.dd,
 		forecast,
-		cad,
-		cadUnit:
-			upp === null ? `aphid-days per ${latest?.sampleUnit ?? 'unit'}` : 'aphid-days per plant',
-		yieldLoss: loss,
-		sapDrain,
+		...costs,
 		enemies,
 		assumptions,
 		perVisit: all.summaries
