@@ -4,6 +4,8 @@ import { defineConfig } from 'vitest/config';
 export default defineConfig({
 	plugins: [sveltekit()],
 	server: { port: 5173, strictPort: false },
+	// The 2-core machines here make SvelteKit's post-build hooks look slow; the report is noise.
+	build: { rolldownOptions: { checks: { bundlerTimings: false, circularDependency: false } } },
 	test: {
 		projects: [
 			{
