@@ -45,7 +45,9 @@ function ensureNodeModules() {
 		.digest('hex');
 	if (existsSync(stampFile) && readFileSync(stampFile, 'utf8') === want) return;
 	console.log('• Installing npm packages');
-	run('npm', [existsSync(lock) ? 'ci' : 'install', '--no-audit', '--no-fund']);
+	// A full, clean install on a fresh clone; an incremental one when packages changed.
+	const fresh = !existsSync(join(root, 'node_modules'));
+	run('npm', [fresh && existsSync(lock) ? 'ci' : 'install', '--no-audit', '--no-fund']);
 	writeFileSync(stampFile, want);
 }
 

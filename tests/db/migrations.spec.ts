@@ -47,9 +47,9 @@ describe('migrations', () => {
 		expect(all.length).toBeGreaterThan(0);
 		await m.up();
 		const tables = async () =>
-			(await sequelize.getQueryInterface().showAllTables()).filter(
-				(t) => t !== 'schema_migrations'
-			);
+			(await sequelize.getQueryInterface().showAllTables())
+				.map((t) => (typeof t === 'string' ? t : (t as { tableName: string }).tableName))
+				.filter((t) => t !== 'schema_migrations');
 		const afterUp = (await tables()).sort();
 		for (const t of ['organisations', 'users', 'blocks', 'visits', 'notifications', 'audit_log']) {
 			expect(afterUp).toContain(t);
