@@ -9,7 +9,30 @@ const config = {
 	preprocess: vitePreprocess(),
 	kit: {
 		adapter: adapter({ out: slot ? `build-${slot}` : 'build' }),
-		outDir: slot ? `.svelte-kit-${slot}` : '.svelte-kit'
+		outDir: slot ? `.svelte-kit-${slot}` : '.svelte-kit',
+		// The offline worker is registered by the scout's pages only (scope /rounds), so it never
+		// runs for other screens; see src/routes/(app)/rounds/+layout.svelte.
+		serviceWorker: { register: false },
+		// Scripts only from the app itself (Kit adds nonces or hashes for its own inline code).
+		// Styles allow inline because Leaflet positions tiles and markers with style attributes;
+		// images allow https: so a deployment can configure a map tile server.
+		csp: {
+			mode: 'auto',
+			directives: {
+				'default-src': ['self'],
+				'script-src': ['self'],
+				'style-src': ['self', 'unsafe-inline'],
+				'img-src': ['self', 'data:', 'blob:', 'https:'],
+				'font-src': ['self', 'data:'],
+				'connect-src': ['self'],
+				'worker-src': ['self'],
+				'manifest-src': ['self'],
+				'frame-ancestors': ['none'],
+				'form-action': ['self'],
+				'base-uri': ['self'],
+				'object-src': ['none']
+			}
+		}
 	}
 };
 

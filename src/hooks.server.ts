@@ -1,8 +1,18 @@
 import { redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
+import { building } from '$app/environment';
 import { handle as authHandle } from '$lib/server/auth';
+import { assertSafeForProduction } from '$lib/server/config';
 import { isPublicPath } from '$lib/server/public-paths';
+import {
+	databaseOutage,
+	isDatabaseUnavailable,
+	markDatabaseDown,
+	securityHeaders
+} from '$lib/server/resilience';
 import { ROLES, type Role } from '$lib/roles';
+
+if (!building) assertSafeForProduction();
 
 const loadUser: Handle = async ({ event, resolve }) => {
 	const session = await event.locals.auth();
@@ -36,9 +46,15 @@ const guard: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(authHandle, loadUser, guard);
+export const handle = sequence(securityHeaders, databaseOutage, authHandle, loadUser, guard);
 
-export const handleError: HandleServerError = ({ error, status, message }) => {
+export const handleError: HandleServerError = ({ error, event, status, message }) => {
+	if (isDatabaseUnavailable(error)) {
+		markDatabaseDown(event);
+		return {
+			message: 'The database is unavailable right now; nothing was saved. Try again shortly.'
+		};
+	}
 	if (status >= 500) console.error(error);
 	return {
 		message: status >= 500 ? 'Something went wrong on our side. Try again in a moment.' : message

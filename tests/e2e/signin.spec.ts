@@ -15,18 +15,20 @@ afterAll(async () => {
 
 describe('sign-in', () => {
 	const homes = [
-		['admin', '/desk', 'Desk'],
-		['agronomist', '/desk', 'Desk'],
-		['scout', '/rounds', 'My rounds'],
-		['grower', '/my-farms', 'My farms'],
-		['regional', '/region', 'Region']
+		['admin', '/desk', /Desk/],
+		['agronomist', '/desk', /Desk/],
+		['scout', '/rounds', /round|today/i],
+		['grower', '/my-farms', /farm/i],
+		['regional', '/region', /Region|Valley/]
 	] as const;
 	for (const [who, home, heading] of homes) {
 		it(`${who} lands on their own home`, async () => {
 			const { context, page } = await newPage(browser, { viewport: PHONE });
 			await signInAs(page, who);
 			expect(new URL(page.url()).pathname).toBe(home);
-			await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toBe(heading);
+			await expect(page.getByRole('heading', { level: 1 }).first().textContent()).resolves.toMatch(
+				heading
+			);
 			await context.close();
 		});
 	}

@@ -38,3 +38,16 @@ export function config(): Config {
 export function isDefaultSecret(c: Config) {
 	return c.AUTH_SECRET === DEFAULT_SECRET;
 }
+
+/** Refuses to run a production server with the published development secret. */
+export function assertSafeForProduction(c = config()) {
+	if (
+		c.NODE_ENV === 'production' &&
+		isDefaultSecret(c) &&
+		c.CORNICLE_ALLOW_DEFAULT_SECRET !== '1'
+	) {
+		throw new Error(
+			'AUTH_SECRET is the development default. Set a long random AUTH_SECRET (e.g. `openssl rand -base64 48`) before running in production.'
+		);
+	}
+}

@@ -30,8 +30,8 @@ export function connect(opts: ConnectOptions): Sequelize {
 		host: main.host,
 		port: main.port,
 		logging: opts.logging ? console.log : false,
-		pool: opts.pool ?? { max: 10, min: 0, acquire: 10_000, idle: 10_000 },
-		dialectOptions: { connectTimeout: 5_000 },
+		pool: opts.pool ?? { max: 10, min: 0, acquire: 5_000, idle: 10_000 },
+		dialectOptions: { connectTimeout: 3_000 },
 		timezone: '+00:00',
 		define: { underscored: true },
 		...(opts.replicaUrls?.length
