@@ -6,8 +6,6 @@ export interface ConnectOptions {
 	url: string;
 	logging?: boolean;
 	pool?: Options['pool'];
-	/** Read replicas for maps, triage and the regional overview. */
-	replicaUrls?: string[];
 }
 
 function parts(url: string) {
@@ -23,8 +21,15 @@ function parts(url: string) {
 
 /** Opens a Sequelize instance on MariaDB and binds every model to it. */
 export function connect(opts: ConnectOptions): Sequelize {
+	const sequelize = connectRaw(opts);
+	initModels(sequelize);
+	return sequelize;
+}
+
+/** A Sequelize instance for raw queries only (e.g. on a read replica); no models bound. */
+export function connectRaw(opts: ConnectOptions): Sequelize {
 	const main = parts(opts.url);
-	const sequelize = new Sequelize(main.database, main.username, main.password, {
+	return new Sequelize(main.database, main.username, main.password, {
 		dialect: 'mariadb',
 		dialectModule: mariadb,
 		host: main.host,
@@ -33,11 +38,6 @@ export function connect(opts: ConnectOptions): Sequelize {
 		pool: opts.pool ?? { max: 10, min: 0, acquire: 5_000, idle: 10_000 },
 		dialectOptions: { connectTimeout: 3_000 },
 		timezone: '+00:00',
-		define: { underscored: true },
-		...(opts.replicaUrls?.length
-			? { replication: { write: main, read: opts.replicaUrls.map(parts) } }
-			: {})
+		define: { underscored: true }
 	});
-	initModels(sequelize);
-	return sequelize;
 }
