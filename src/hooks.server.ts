@@ -1,4 +1,4 @@
-import { redirect, type Handle, type HandleServerError } from '@sveltejs/kit';
+import { redirect, type Handle, type HandleServerError, type ServerInit } from '@sveltejs/kit';
 import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { handle as authHandle } from '$lib/server/auth';
@@ -11,6 +11,10 @@ import {
 	securityHeaders
 } from '$lib/server/resilience';
 import { ROLES, type Role } from '$lib/roles';
+import { building } from '$app/environment';
+import { env } from '$env/dynamic/private';
+import { startAlertsInApp } from '$lib/server/alerts/inApp';
+import { db } from '$lib/server/db';
 
 if (!building) assertSafeForProduction();
 
@@ -59,4 +63,10 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 	return {
 		message: status >= 500 ? 'Something went wrong on our side. Try again in a moment.' : message
 	};
+};
+
+// The alerts outbox worker runs inside the app unless ALERTS_WORKER=off (tests that run their
+// own workers); more can run beside it (src/lib/server/alerts/cli.ts).
+export const init: ServerInit = () => {
+	if (!building) startAlertsInApp(env, db);
 };

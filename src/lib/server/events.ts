@@ -1,5 +1,7 @@
 import type { Transaction } from 'sequelize';
 import type { Assessment as EngineAssessment, LevelKey } from '../engine';
+import { queueLevelAlerts } from './alerts/levelAlerts';
+import { queueRecommendationAlerts } from './alerts/recommendationAlerts';
 import { AuditLog, type Block } from './db/models';
 
 export interface LevelChange {
@@ -12,6 +14,7 @@ export interface LevelChange {
 /**
  * The single place a block's change of level goes. Runs inside the caller's transaction, so
  * whatever it writes (the audit entry, and the alert outbox rows) commits with the visit.
+ * A rise queues one message per subscriber and channel (see alerts/levelAlerts.ts).
  */
 export async function levelChanged(change: LevelChange) {
 	await AuditLog.create(
@@ -25,6 +28,7 @@ export async function levelChanged(change: LevelChange) {
 		},
 		{ transaction: change.transaction }
 	);
+	await queueLevelAlerts(change.block, change.from, change.to, change.transaction);
 }
 
 export interface RecommendationEvent {
@@ -51,4 +55,5 @@ export async function recommendationIssued(e: RecommendationEvent) {
 		},
 		{ transaction: e.transaction }
 	);
+	await queueRecommendationAlerts(e.recommendationId, e.transaction);
 }

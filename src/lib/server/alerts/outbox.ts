@@ -1,0 +1,100 @@
+import { Op, type Transaction } from 'sequelize';
+import type { Channel } from '../../domain';
+import { Notification } from '../db/models';
+import type { Composed } from './compose';
+import { releaseAfterQuiet } from './quiet';
+import type { Recipient } from './recipients';
+
+export interface OutboxRow {
+	organisationId: number;
+	userId: number;
+	blockId: number | null;
+	recommendationId: number | null;
+	channel: Channel;
+	kind: string;
+	dedupeKey: string;
+	toAddress: string;
+	subject: string | null;
+	bodyText: string;
+	bodyHtml: string | null;
+	status: 'pending' | 'suppressed';
+	notBefore: Date;
+	lastError: string | null;
+}
+
+export interface RowContext {
+	organisationId: number;
+	blockId: number | null;
+	recommendationId: number | null;
+	kind: string;
+	/** Key without person and channel; those are appended. */
+	dedupeBase: string;
+	now: Date;
+	timeZone: string;
+	/** Top-level alerts go out at once, quiet hours or not. */
+	urgent: boolean;
+	optedOut: Set<string>;
+}
+
+/** One outbox row per recipient and channel; SMS honours quiet hours and opt-outs. */
+export function rowFor(r: Recipient, msg: Composed, c: RowContext): OutboxRow | null {
+	const base = {
+		organisationId: c.organisationId,
+		userId: r.userId,
+		blockId: c.blockId,
+		recommendationId: c.recommendationId,
+		kind: c.kind,
+		dedupeKey: `${c.dedupeBase}:u${r.userId}:${r.channel}`,
+		lastError: null as string | null
+	};
+	if (r.channel === 'sms') {
+		if (!r.phone) return null;
+		const stopped = c.optedOut.has(r.phone);
+		return {
+			...base,
+			channel: 'sms',
+			toAddress: r.phone,
+			subject: null,
+			bodyText: msg.sms,
+			bodyHtml: null,
+			status: stopped ? 'suppressed' : 'pending',
+			lastError: stopped ? 'The number replied STOP; no SMS until it replies START.' : null,
+			notBefore: c.urgent ? c.now : releaseAfterQuiet(c.now, c.timeZone, r.quietStart, r.quietEnd)
+		};
+	}
+	return {
+		...base,
+		channel: 'email',
+		toAddress: r.email,
+		subject: msg.subject.slice(0, 300),
+		bodyText: msg.text,
+		bodyHtml: msg.html,
+		status: 'pending',
+		notBefore: c.now
+	};
+}
+
+/**
+ * Writes outbox rows in the caller's transaction. A row whose dedupe key exists is skipped
+ * (INSERT IGNORE), so a repeat of the same event never queues a second message.
+ */
+export async function writeRows(rows: OutboxRow[], t?: Transaction) {
+	if (!rows.length) return 0;
+	await Notification.bulkCreate(rows, { transaction: t, ignoreDuplicates: true });
+	return rows.length;
+}
+
+/** People and channels already alerted for this block and kind since `since` (not failed). */
+export async function alertedSince(blockId: number, kind: string, since: Date, t?: Transaction) {
+	const rows = await Notification.findAll({
+		attributes: ['userId', 'channel'],
+		where: {
+			blockId,
+			kind,
+			createdAt: { [Op.gt]: since },
+			status: { [Op.notIn]: ['failed', 'undelivered'] }
+		},
+		transaction: t
+	});
+	return new Set(rows.map((r) => `${r.userId}:${r.channel}`));
+}
