@@ -11,7 +11,6 @@ import {
 	securityHeaders
 } from '$lib/server/resilience';
 import { ROLES, type Role } from '$lib/roles';
-import { building } from '$app/environment';
 import { env } from '$env/dynamic/private';
 import { startAlertsInApp } from '$lib/server/alerts/inApp';
 import { db } from '$lib/server/db';
