@@ -1,22 +1,16 @@
-import { QueryTypes } from 'sequelize';
-import { db } from '$lib/server/db';
+import { Organisation } from '$lib/server/db';
 import { requireRole } from '$lib/server/guard';
+import { env } from '$env/dynamic/private';
 import type { PageServerLoad } from './$types';
 
-// Counts only: the regional view never sees a grower, farm or block name.
+// The page only names the region; the cells come from /api/region/cells, which applies the
+// 3-farm floor and leaves out every grower, farm and block name, id and outline.
 export const load: PageServerLoad = async (event) => {
-	requireRole(event, 'regional');
-	const rows = await db().query<{
-		crop: string;
-		level: string | null;
-		blocks: number;
-		farms: number;
-	}>(
-		`SELECT c.name AS crop, b.current_level AS level, COUNT(*) AS blocks, COUNT(DISTINCT b.farm_id) AS farms
-		   FROM blocks b JOIN crops c ON c.id = b.crop_id
-		  GROUP BY c.name, b.current_level HAVING COUNT(DISTINCT b.farm_id) >= 3
-		  ORDER BY c.name`,
-		{ type: QueryTypes.SELECT }
-	);
-	return { rows: rows.map((r) => ({ ...r, blocks: Number(r.blocks), farms: Number(r.farms) })) };
+	const user = requireRole(event, 'regional');
+	const org = await Organisation.findByPk(user.organisationId, { attributes: ['region'] });
+	return {
+		region: org?.region ?? 'Your region',
+		tileUrl: env.MAP_TILE_URL || null,
+		tileAttribution: env.MAP_TILE_ATTRIBUTION || null
+	};
 };

@@ -1,0 +1,60 @@
+import { error, json } from '@sveltejs/kit';
+import { z } from 'zod';
+import { checkBoundary } from '$lib/geo/validate';
+import { requireRole } from '$lib/server/guard';
+import { blockForBoundary, saveBoundary } from '$lib/server/boundaries';
+import { mapScopeOf } from '$lib/server/map-scope';
+import { mapBlocks } from '$lib/server/queries/map';
+import { blocksFeatureCollection } from '$lib/map/geojson';
+import type { RequestHandler } from './$types';
+
+const idParam = z.coerce.number().int().positive();
+
+function blockId(raw: string) {
+	const id = idParam.safeParse(raw);
+	if (!id.success) error(404, 'No such block.');
+	return id.data;
+}
+
+/** The block's boundary as a GeoJSON Feature (its centre point when none is drawn yet). */
+export const GET: RequestHandler = async (event) => {
+	const user = requireRole(event, 'admin', 'agronomist', 'scout', 'grower');
+	const id = blockId(event.params.id);
+	const rows = await mapBlocks(mapScopeOf(user), { blockId: id });
+	if (!rows.length) error(404, 'No such block.');
+	const fc = JSON.parse(blocksFeatureCollection(rows));
+	return json(fc.features[0], { headers: { 'content-type': 'application/geo+json' } });
+};
+
+/** Replaces the block's boundary with a GeoJSON Polygon (or a Feature holding one). */
+export const PUT: RequestHandler = async (event) => {
+	const user = requireRole(event, 'admin', 'agronomist');
+	const id = blockId(event.params.id);
+	if (!(await blockForBoundary(id, user.organisationId))) error(404, 'No such block.');
+	let body: unknown;
+	try {
+		body = await event.request.json();
+	} catch {
+		return json(
+			{
+				message: 'The body is not JSON.',
+				issues: [{ path: 'boundary', message: 'Send GeoJSON.' }]
+			},
+			{ status: 400 }
+		);
+	}
+	const checked = checkBoundary(body);
+	if (!checked.ok)
+		return json(
+			{ message: checked.message, issues: [{ path: 'boundary', message: checked.message }] },
+			{ status: 400 }
+		);
+	await saveBoundary(id, user.organisationId, user.id, checked);
+	const m = checked.measured;
+	return json({
+		id,
+		areaHa: Math.round(m.areaHa * 100) / 100,
+		areaAc: Math.round(m.areaAc * 100) / 100,
+		centroid: [m.centroidLon, m.centroidLat]
+	});
+};

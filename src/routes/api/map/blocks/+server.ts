@@ -1,0 +1,18 @@
+import { json } from '@sveltejs/kit';
+import { blocksFeatureCollection } from '$lib/map/geojson';
+import { blocksQuery, parseQuery } from '$lib/map/params';
+import { requireRole } from '$lib/server/guard';
+import { mapScopeOf } from '$lib/server/map-scope';
+import { mapBlocks } from '$lib/server/queries/map';
+import type { RequestHandler } from './$types';
+
+/** Blocks as GeoJSON for the map: ?bbox=minLon,minLat,maxLon,maxLat&crop=&pest=&on=YYYY-MM-DD. */
+export const GET: RequestHandler = async (event) => {
+	const user = requireRole(event, 'admin', 'agronomist', 'scout', 'grower');
+	const q = parseQuery(blocksQuery, event.url.searchParams);
+	if (!q.ok) return json(q.body, { status: 400 });
+	const rows = await mapBlocks(mapScopeOf(user), q.data);
+	return new Response(blocksFeatureCollection(rows), {
+		headers: { 'content-type': 'application/geo+json', 'cache-control': 'private, no-store' }
+	});
+};
