@@ -18,12 +18,28 @@ export const PAGES: Record<string, AccessRule> = {
 	'/(app)/rounds': { roles: ['scout'] },
 	'/(app)/my-farms': { roles: ['grower'] },
 	'/(app)/region': { roles: ['regional'] },
+	'/(app)/map': { roles: ['admin', 'agronomist', 'scout', 'grower'] },
+	'/(app)/blocks/[id]/boundary': {
+		path: '/blocks/{block}/boundary',
+		roles: ['agronomist', 'admin']
+	},
 	'/(app)/admin/people': { roles: ['admin'] }
 };
 
 /** Endpoints under src/routes/api that need a signed-in user, by "METHOD route id". */
 export const ENDPOINTS: Record<string, AccessRule> = {
-	'GET /api/me': { roles: ALL_ROLES }
+	'GET /api/me': { roles: ALL_ROLES },
+	'GET /api/map/blocks': { roles: ['admin', 'agronomist', 'scout', 'grower'] },
+	'GET /api/map/traps': { roles: ['admin', 'agronomist', 'scout', 'grower'] },
+	'GET /api/region/cells': { roles: ['regional'] },
+	'GET /api/blocks/[id]/boundary': {
+		path: '/api/blocks/{block}/boundary',
+		roles: ['admin', 'agronomist', 'scout', 'grower']
+	},
+	'PUT /api/blocks/[id]/boundary': {
+		path: '/api/blocks/{block}/boundary',
+		roles: ['admin', 'agronomist']
+	}
 };
 
 /** Routes anyone may reach, signed in or not (each listed with why). */

@@ -11,6 +11,7 @@ export const NAV: NavItem[] = [
 	{ href: '/desk', label: 'Desk', roles: ['agronomist', 'admin'] },
 	{ href: '/rounds', label: 'My rounds', roles: ['scout'] },
 	{ href: '/my-farms', label: 'My farms', roles: ['grower'] },
+	{ href: '/map', label: 'Map', roles: ['agronomist', 'admin', 'scout', 'grower'] },
 	{ href: '/region', label: 'Region', roles: ['regional'] },
 	{ href: '/admin/people', label: 'People', roles: ['admin'] }
 ];
