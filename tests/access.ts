@@ -23,7 +23,14 @@ export const PAGES: Record<string, AccessRule> = {
 		path: '/blocks/{block}/boundary',
 		roles: ['agronomist', 'admin']
 	},
-	'/(app)/admin/people': { roles: ['admin'] }
+	'/(app)/admin/people': { roles: ['admin'] },
+	'/(app)/blocks/[id]': { path: '/blocks/{block}', roles: ['agronomist', 'admin', 'grower'] },
+	'/(app)/blocks/[id]/recommend': { path: '/blocks/{block}/recommend', roles: ['agronomist', 'admin'] },
+	'/(app)/blocks/[id]/report': { path: '/blocks/{block}/report', roles: ['agronomist', 'admin', 'grower'] },
+	'/(app)/recommendations': { roles: ['agronomist', 'admin'] },
+	'/(app)/library/products': { roles: ['agronomist', 'admin'] },
+	'/(app)/library/thresholds': { roles: ['agronomist', 'admin'] },
+	'/(app)/audit': { roles: ['agronomist', 'admin'] }
 };
 
 /** Endpoints under src/routes/api that need a signed-in user, by "METHOD route id". */
@@ -39,7 +46,16 @@ export const ENDPOINTS: Record<string, AccessRule> = {
 	'PUT /api/blocks/[id]/boundary': {
 		path: '/api/blocks/{block}/boundary',
 		roles: ['admin', 'agronomist']
-	}
+	},
+	'GET /api/recommendations': { roles: ['agronomist', 'admin', 'grower'] },
+	'POST /api/recommendations': { roles: ['agronomist', 'admin'] },
+	'POST /api/recommendations/check': { roles: ['agronomist', 'admin'] },
+	// Refused before the record is looked up, so any id probes the role check.
+	'POST /api/recommendations/[id]/acknowledge': {
+		path: '/api/recommendations/0/acknowledge',
+		roles: ['grower']
+	},
+	'GET /api/triage.csv': { roles: ['agronomist', 'admin'] }
 };
 
 /** Routes anyone may reach, signed in or not (each listed with why). */

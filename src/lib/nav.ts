@@ -12,6 +12,9 @@ export const NAV: NavItem[] = [
 	{ href: '/rounds', label: 'My rounds', roles: ['scout'] },
 	{ href: '/my-farms', label: 'My farms', roles: ['grower'] },
 	{ href: '/map', label: 'Map', roles: ['agronomist', 'admin', 'scout', 'grower'] },
+	{ href: '/recommendations', label: 'Advice', roles: ['agronomist', 'admin'] },
+	{ href: '/library/products', label: 'Library', roles: ['agronomist', 'admin'] },
+	{ href: '/audit', label: 'Audit', roles: ['agronomist', 'admin'] },
 	{ href: '/region', label: 'Region', roles: ['regional'] },
 	{ href: '/admin/people', label: 'People', roles: ['admin'] }
 ];

@@ -1,17 +1,10 @@
 import type { Role } from '../../roles';
 import type { AlertSettings } from './settings';
 
-const HOME: Record<Role, string> = {
-	admin: '/desk',
-	agronomist: '/desk',
-	scout: '/rounds',
-	grower: '/my-farms',
-	regional: '/region'
-};
-
-/** Where an alert about a block sends each role (the page that role uses for blocks). */
+/** Where an alert about a block sends each role: the block page, or a scout's rounds. */
 export function blockLink(s: AlertSettings, role: Role, blockId: number) {
-	return new URL(`${HOME[role]}?block=${blockId}`, s.PUBLIC_BASE_URL).href;
+	const path = role === 'scout' ? '/rounds' : role === 'regional' ? '/region' : `/blocks/${blockId}`;
+	return new URL(path, s.PUBLIC_BASE_URL).href;
 }
 
 export function settingsLink(s: AlertSettings) {
