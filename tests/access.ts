@@ -25,8 +25,14 @@ export const PAGES: Record<string, AccessRule> = {
 	},
 	'/(app)/admin/people': { roles: ['admin'] },
 	'/(app)/blocks/[id]': { path: '/blocks/{block}', roles: ['agronomist', 'admin', 'grower'] },
-	'/(app)/blocks/[id]/recommend': { path: '/blocks/{block}/recommend', roles: ['agronomist', 'admin'] },
-	'/(app)/blocks/[id]/report': { path: '/blocks/{block}/report', roles: ['agronomist', 'admin', 'grower'] },
+	'/(app)/blocks/[id]/recommend': {
+		path: '/blocks/{block}/recommend',
+		roles: ['agronomist', 'admin']
+	},
+	'/(app)/blocks/[id]/report': {
+		path: '/blocks/{block}/report',
+		roles: ['agronomist', 'admin', 'grower']
+	},
 	'/(app)/recommendations': { roles: ['agronomist', 'admin'] },
 	'/(app)/library/products': { roles: ['agronomist', 'admin'] },
 	'/(app)/library/thresholds': { roles: ['agronomist', 'admin'] },
