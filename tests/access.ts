@@ -16,6 +16,19 @@ export interface AccessRule {
 export const PAGES: Record<string, AccessRule> = {
 	'/(app)/desk': { roles: ['agronomist', 'admin'] },
 	'/(app)/rounds': { roles: ['scout'] },
+	'/(app)/rounds/[id]/visit': {
+		path: '/rounds/{block}/visit',
+		roles: ['scout', 'agronomist', 'admin']
+	},
+	'/(app)/rounds/outbox': { roles: ['scout', 'agronomist', 'admin'] },
+	'/(app)/assignments': { roles: ['agronomist', 'admin'] },
+	'/(app)/traps': { roles: ['agronomist', 'admin', 'scout'] },
+	'/(app)/weather': { roles: ['agronomist', 'admin', 'scout'] },
+	'/(app)/import': { roles: ['agronomist', 'admin'] },
+	'/(app)/rounds/traps/[id]': {
+		path: '/rounds/traps/{trap}',
+		roles: ['scout', 'agronomist', 'admin']
+	},
 	'/(app)/my-farms': { roles: ['grower'] },
 	'/(app)/region': { roles: ['regional'] },
 	'/(app)/map': { roles: ['admin', 'agronomist', 'scout', 'grower'] },
@@ -42,6 +55,25 @@ export const PAGES: Record<string, AccessRule> = {
 /** Endpoints under src/routes/api that need a signed-in user, by "METHOD route id". */
 export const ENDPOINTS: Record<string, AccessRule> = {
 	'GET /api/me': { roles: ALL_ROLES },
+	'POST /api/visits': { roles: ['scout', 'agronomist', 'admin'] },
+	'GET /api/visits/[id]': {
+		path: '/api/visits/{visit}',
+		roles: ['scout', 'agronomist', 'admin', 'grower']
+	},
+	'GET /api/blocks/[id]/visits': {
+		path: '/api/blocks/{block}/visits',
+		roles: ['scout', 'agronomist', 'admin', 'grower']
+	},
+	'GET /api/blocks/[id]/visits.csv': {
+		path: '/api/blocks/{block}/visits.csv',
+		roles: ['scout', 'agronomist', 'admin', 'grower']
+	},
+	'POST /api/trap-readings': { roles: ['scout', 'agronomist', 'admin'] },
+	'POST /api/photos': { roles: ['scout', 'agronomist', 'admin'] },
+	'GET /api/photos/[id]': {
+		path: '/api/photos/{photo}',
+		roles: ['scout', 'agronomist', 'admin', 'grower']
+	},
 	'GET /api/map/blocks': { roles: ['admin', 'agronomist', 'scout', 'grower'] },
 	'GET /api/map/traps': { roles: ['admin', 'agronomist', 'scout', 'grower'] },
 	'GET /api/region/cells': { roles: ['regional'] },
@@ -70,5 +102,6 @@ export const PUBLIC: Record<string, string> = {
 	'/signin': 'sign-in',
 	'/signin/check-email': 'sign-in link sent',
 	'/signout': 'sign-out action',
-	'GET /api/health': 'load balancer health check'
+	'GET /api/health': 'load balancer health check',
+	'GET /api/openapi.json': 'the API description; it holds no data'
 };

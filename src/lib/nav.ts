@@ -10,6 +10,11 @@ export interface NavItem {
 export const NAV: NavItem[] = [
 	{ href: '/desk', label: 'Desk', roles: ['agronomist', 'admin'] },
 	{ href: '/rounds', label: 'My rounds', roles: ['scout'] },
+	{ href: '/rounds/outbox', label: 'Outbox', roles: ['scout'] },
+	{ href: '/assignments', label: 'Assignments', roles: ['agronomist', 'admin'] },
+	{ href: '/traps', label: 'Traps', roles: ['agronomist', 'admin', 'scout'] },
+	{ href: '/weather', label: 'Weather', roles: ['agronomist', 'admin', 'scout'] },
+	{ href: '/import', label: 'Import', roles: ['agronomist', 'admin'] },
 	{ href: '/my-farms', label: 'My farms', roles: ['grower'] },
 	{ href: '/map', label: 'Map', roles: ['agronomist', 'admin', 'scout', 'grower'] },
 	{ href: '/recommendations', label: 'Advice', roles: ['agronomist', 'admin'] },

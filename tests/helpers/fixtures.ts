@@ -1,8 +1,11 @@
 import { QueryTypes } from 'sequelize';
 import { testDb } from './db';
+import { ensureDemoPhoto } from './photos';
 
 /** Ids of demo records by role-visible name, for filling {placeholders} in probe paths. */
 export async function demoIds(): Promise<Record<string, string>> {
+	// The demo seed has no photos; a test photo on North Forty stands in for one.
+	const photo = await ensureDemoPhoto();
 	const rows = await testDb().query<{ k: string; id: number }>(
 		`SELECT 'block' AS k, b.id FROM blocks b WHERE b.name = 'North Forty'
 		 UNION ALL SELECT 'farm', f.id FROM farms f WHERE f.name = 'Heronsbrook Farm'
@@ -12,7 +15,10 @@ export async function demoIds(): Promise<Record<string, string>> {
 		 UNION ALL SELECT 'recommendation', MAX(r.id) FROM recommendations r JOIN blocks b ON b.id = r.block_id WHERE b.name = 'North Forty'`,
 		{ type: QueryTypes.SELECT }
 	);
-	return Object.fromEntries(rows.filter((r) => r.id != null).map((r) => [r.k, String(r.id)]));
+	return {
+		...Object.fromEntries(rows.filter((r) => r.id != null).map((r) => [r.k, String(r.id)])),
+		photo: String(photo)
+	};
 }
 
 export function fill(path: string, ids: Record<string, string>) {

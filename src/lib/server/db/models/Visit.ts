@@ -30,6 +30,9 @@ export class Visit extends Model<InferAttributes<Visit>, InferCreationAttributes
 	declare hoverflies: CreationOptional<number>;
 	declare otherPredators: CreationOptional<number>;
 	declare notes: CreationOptional<string | null>;
+	declare entryChannel: CreationOptional<'phone' | 'api' | 'csv'>;
+	declare samplingPlan: CreationOptional<string | null>;
+	declare planDecision: CreationOptional<string | null>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -58,6 +61,13 @@ export class Visit extends Model<InferAttributes<Visit>, InferCreationAttributes
 				hoverflies: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				otherPredators: { type: DataTypes.INTEGER, allowNull: false, defaultValue: 0 },
 				notes: { type: DataTypes.TEXT, allowNull: true },
+				entryChannel: {
+					type: DataTypes.ENUM('phone', 'api', 'csv'),
+					allowNull: false,
+					defaultValue: 'api'
+				},
+				samplingPlan: { type: DataTypes.STRING(40), allowNull: true },
+				planDecision: { type: DataTypes.STRING(200), allowNull: true },
 				createdAt: DataTypes.DATE,
 				updatedAt: DataTypes.DATE
 			},
