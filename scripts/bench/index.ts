@@ -4,7 +4,12 @@ import { profileEnv, root, type Profile } from '../lib/profile';
 import { startServices } from '../lib/stack';
 
 /** Benchmark scripts, each printing its own figures; add new ones here. */
-export const BENCHES = ['scripts/bench/engine.ts'];
+export const BENCHES = [
+	'scripts/bench/engine.ts',
+	'scripts/bench/ingest.ts',
+	'scripts/bench/bundle.ts',
+	'scripts/bench/map.ts'
+];
 
 /**
  * `npm run bench`: starts the fakes and the built app on the bench database, then runs each

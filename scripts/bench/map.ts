@@ -1,0 +1,124 @@
+// The organisation map endpoint with 5,000 extra blocks in the demo advisory firm: seeds them in
+// bulk (once per bench database), signs in as the demo agronomist and times GET /api/map/blocks
+// for the whole organisation and for a typical view. Target: median under 150 ms.
+import mariadb from 'mariadb';
+import { ms, percentile, signIn } from './stats';
+
+const APP = process.env.BENCH_APP_URL!;
+const DB = new URL(process.env.DATABASE_URL!);
+const BLOCKS = 5000;
+const RUNS = Number(process.env.BENCH_MAP_RUNS ?? 40);
+const LEVELS = ['calm', 'stirring', 'action', 'severe'];
+
+/** 5,000 rectangles of ~400 m x 300 m on a 100 x 50 grid east of the demo valley. */
+async function seed(conn: mariadb.Connection) {
+	const [{ n }] = await conn.query(
+		`SELECT COUNT(*) AS n FROM blocks WHERE name LIKE 'Map bench %'`
+	);
+	if (Number(n) >= BLOCKS) return 0;
+	const [tmpl] = await conn.query(
+		`SELECT organisation_id, farm_id, crop_id, pest_id FROM blocks WHERE name = 'North Forty'`
+	);
+	const farms: { id: number }[] = await conn.query(
+		`SELECT id FROM farms WHERE organisation_id = ?`,
+		[tmpl.organisation_id]
+	);
+	const kmLat = 1 / 110.574;
+	const kmLon = 1 / (111.32 * Math.cos((47.2 * Math.PI) / 180));
+	const rows: unknown[][] = [];
+	for (let i = 0; i < BLOCKS; i++) {
+		const x0 = -96.8 + (i % 100) * 0.5 * kmLon;
+		const y0 = 47.1 + Math.floor(i / 100) * 0.4 * kmLat;
+		const x1 = x0 + 0.4 * kmLon;
+		const y1 = y0 + 0.3 * kmLat;
+		const r = (v: number) => Math.round(v * 1e6) / 1e6;
+		const ring = [
+			[r(x0), r(y0)],
+			[r(x1), r(y0)],
+			[r(x1), r(y1)],
+			[r(x0), r(y1)],
+			[r(x0), r(y0)]
+		];
+		rows.push([
+			tmpl.organisation_id,
+			farms[i % farms.length].id,
+			tmpl.crop_id,
+			tmpl.pest_id,
+			`Map bench ${i}`,
+			350_000,
+			12,
+			JSON.stringify({ type: 'Polygon', coordinates: [ring] }),
+			(y0 + y1) / 2,
+			(x0 + x1) / 2,
+			y0,
+			x0,
+			y1,
+			x1,
+			LEVELS[i % 4],
+			'Bench block'
+		]);
+	}
+	await conn.beginTransaction();
+	await conn.batch(
+		`INSERT INTO blocks (organisation_id, farm_id, crop_id, pest_id, name, plants_per_ha, area_ha,
+		   boundary, centroid_lat, centroid_lon, min_lat, min_lon, max_lat, max_lon, current_level,
+		   current_reason, rescout_days, created_at, updated_at)
+		 VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?, 7, NOW(), NOW())`,
+		rows
+	);
+	await conn.commit();
+	return rows.length;
+}
+
+async function time(url: string, cookie: string) {
+	const times: number[] = [];
+	let features = 0;
+	let bytes = 0;
+	for (let i = 0; i < RUNS + 5; i++) {
+		const t0 = performance.now();
+		const res = await fetch(url, { headers: { cookie } });
+		const text = await res.text();
+		const dt = performance.now() - t0;
+		if (res.status !== 200) throw new Error(`${url} answered ${res.status}: ${text.slice(0, 200)}`);
+		if (i >= 5) times.push(dt);
+		if (i === 0) {
+			features = (JSON.parse(text) as { features: unknown[] }).features.length;
+			bytes = text.length;
+		}
+	}
+	return { features, bytes, median: percentile(times, 50), p95: percentile(times, 95) };
+}
+
+async function main() {
+	const conn = await mariadb.createConnection({
+		host: DB.hostname,
+		port: Number(DB.port),
+		user: decodeURIComponent(DB.username),
+		password: decodeURIComponent(DB.password),
+		database: DB.pathname.slice(1)
+	});
+	const t0 = performance.now();
+	const added = await seed(conn);
+	await conn.end();
+	console.log(`  seeded ${added} blocks in ${ms(performance.now() - t0)}`);
+	const cookie = await signIn(APP, 'dana@brackenridge.test');
+	const cases = [
+		['whole organisation', '/api/map/blocks'],
+		['a 10 km x 8 km view', '/api/map/blocks?bbox=-96.8,47.1,-96.67,47.17']
+	];
+	let worst = 0;
+	for (const [label, path] of cases) {
+		const r = await time(`${APP}${path}`, cookie);
+		worst = Math.max(worst, r.median);
+		console.log(
+			`  map blocks, ${label}: ${r.features} features, ${(r.bytes / 1e6).toFixed(2)} MB, ` +
+				`median ${ms(r.median)}, p95 ${ms(r.p95)} over ${RUNS} requests`
+		);
+	}
+	console.log(`  target: median under 150 ms — ${worst < 150 ? 'met' : 'NOT met'}`);
+}
+
+main().catch((e) => {
+	console.error(e);
+	process.exit(1);
+});
