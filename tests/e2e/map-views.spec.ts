@@ -1,0 +1,74 @@
+import type { Browser } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
+import { DESKTOP, launch, newPage, PHONE, signInAs } from '../helpers/browser';
+
+// Screens are kept for people to look at (not compared): .data/screens/map-*.png
+const SHOTS = join(import.meta.dirname, '../../.data/screens');
+let browser: Browser;
+beforeAll(async () => {
+	mkdirSync(SHOTS, { recursive: true });
+	browser = await launch();
+});
+afterAll(() => browser?.close());
+
+describe('map views', () => {
+	for (const [name, viewport] of [
+		['phone', PHONE],
+		['desktop', DESKTOP]
+	] as const) {
+		it(`the organisation map shows blocks by level with a legend (${name})`, async () => {
+			const { context, page } = await newPage(browser, { viewport });
+			await signInAs(page, 'agronomist');
+			await page.goto('/map');
+			await page.locator('path.level-shape').first().waitFor();
+			expect(await page.locator('path.level-shape').count()).toBeGreaterThanOrEqual(9);
+			await expect(page.getByRole('region', { name: 'Map legend' }).textContent()).resolves.toMatch(
+				/Severe.*Action due.*Stirring.*Calm/s
+			);
+			await page.locator('.trap-pin').first().waitFor();
+			// Phones: nothing wider than the screen.
+			const overflow = await page.evaluate(() => document.documentElement.scrollWidth);
+			expect(overflow).toBeLessThanOrEqual(viewport.width);
+			await page.locator('path.level-shape').first().click({ force: true });
+			await page.getByRole('region', { name: 'Selected on the map' }).waitFor();
+			await page.screenshot({ path: join(SHOTS, `map-org-${name}.png`), fullPage: true });
+			await context.close();
+		});
+	}
+
+	it('filters by crop', async () => {
+		const { context, page } = await newPage(browser);
+		await signInAs(page, 'agronomist');
+		await page.goto('/map');
+		await page.locator('path.level-shape').first().waitFor();
+		await page.getByLabel('Crop').selectOption('wheat');
+		await page.getByRole('button', { name: 'Show' }).click();
+		await page.waitForURL('**/map?crop=wheat');
+		await page.waitForFunction(() => document.querySelectorAll('path.level-shape').length === 1);
+		await expect(page.getByRole('status').first().textContent()).resolves.toMatch(/1 block /);
+		await context.close();
+	});
+
+	it('the regional overview shows hexagons and moves week by week', async () => {
+		for (const [name, viewport] of [
+			['phone', PHONE],
+			['desktop', DESKTOP]
+		] as const) {
+			const { context, page } = await newPage(browser, { viewport });
+			await signInAs(page, 'regional');
+			await page.locator('path.hex-cell').first().waitFor();
+			const slider = page.getByLabel(/Week starting/);
+			const last = await slider.getAttribute('aria-valuetext');
+			await slider.focus();
+			await page.keyboard.press('Home');
+			await expect(slider.getAttribute('aria-valuetext')).resolves.not.toBe(last);
+			await page.keyboard.press('End');
+			const overflow = await page.evaluate(() => document.documentElement.scrollWidth);
+			expect(overflow).toBeLessThanOrEqual(viewport.width);
+			await page.screenshot({ path: join(SHOTS, `map-region-${name}.png`), fullPage: true });
+			await context.close();
+		}
+	});
+});
