@@ -71,4 +71,20 @@ describe('map views', () => {
 			await context.close();
 		}
 	});
+
+	it('the boundary editor opens on the stored polygon, ready to edit (phone)', async () => {
+		const { context, page } = await newPage(browser, { viewport: PHONE });
+		await signInAs(page, 'agronomist');
+		await page.goto('/map');
+		await page.getByRole('button', { name: /North Forty/ }).click();
+		await page.getByRole('link', { name: 'Edit the boundary' }).click();
+		await page.locator('.leaflet-draw-edit-edit').waitFor();
+		await page.locator('path.level-shape').first().waitFor();
+		const text = await page.getByLabel('Boundary as GeoJSON').inputValue();
+		expect(JSON.parse(text)).toMatchObject({ type: 'Polygon' });
+		const overflow = await page.evaluate(() => document.documentElement.scrollWidth);
+		expect(overflow).toBeLessThanOrEqual(PHONE.width);
+		await page.screenshot({ path: join(SHOTS, 'map-boundary-phone.png'), fullPage: true });
+		await context.close();
+	});
 });
