@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { AuditLog, Recommendation } from '../../src/lib/server/db/models';
 import { BLOOM, checkContext, treatmentWarnings } from '../../src/lib/server/advice/checks';
 import {
@@ -10,6 +10,13 @@ import {
 import { rank } from '../../src/lib/server/advice/triage';
 import { closeTestDb } from '../helpers/db';
 import { day, deskScenario } from '../helpers/advice';
+
+// Models bind to one Sequelize instance, so the app's db() hands out the test helper's
+// connection to the same test database (nothing is faked: every query runs on MariaDB).
+vi.mock('../../src/lib/server/db/index.ts', async (original) => {
+	const helpers = await import('../helpers/db');
+	return { ...(await original<object>()), db: () => helpers.testDb() };
+});
 
 type Scenario = Awaited<ReturnType<typeof deskScenario>>;
 let s: Scenario;

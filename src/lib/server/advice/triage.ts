@@ -1,8 +1,7 @@
-import { QueryTypes } from 'sequelize';
 import { z } from 'zod';
 import { dayNumber, type LevelKey } from '$lib/engine';
 import { LEVEL_KEYS } from '$lib/domain';
-import { db } from '../db';
+import { readQuery } from '../db';
 
 export interface TriageRow {
 	id: number;
@@ -144,10 +143,10 @@ const KEY: Record<TriageFilter['sort'], (r: TriageRow) => unknown> = {
 
 /** The organisation's blocks ranked, filtered and sorted; counts per level over the filters. */
 export async function triage(organisationId: number, f: TriageFilter, today: string) {
-	const raw = await db().query<Omit<TriageRow, 'ageDays' | 'overdueDays' | 'urgency'>>(SQL, {
-		replacements: [organisationId],
-		type: QueryTypes.SELECT
-	});
+	// A heavy read screen: served by a replica when one answers.
+	const raw = await readQuery<Omit<TriageRow, 'ageDays' | 'overdueDays' | 'urgency'>>(SQL, [
+		organisationId
+	]);
 	const all = rank(raw, today);
 	const matching = all.filter(
 		(r) =>
