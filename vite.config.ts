@@ -38,6 +38,20 @@ export default defineConfig({
 					testTimeout: 60_000,
 					hookTimeout: 60_000
 				}
+			},
+			{
+				// Fuzzing, the access matrix and fault tests count rows and stop servers, so they run
+				// after every other project has finished, one file at a time.
+				extends: true,
+				test: {
+					name: 'hardening',
+					environment: 'node',
+					include: ['tests/hardening/**/*.spec.ts'],
+					fileParallelism: false,
+					testTimeout: 300_000,
+					hookTimeout: 120_000,
+					sequence: { groupOrder: 1 }
+				}
 			}
 		]
 	}

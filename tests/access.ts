@@ -105,3 +105,37 @@ export const PUBLIC: Record<string, string> = {
 	'GET /api/health': 'load balancer health check',
 	'GET /api/openapi.json': 'the API description; it holds no data'
 };
+
+const ADVISERS: Role[] = ['agronomist', 'admin'];
+
+/** Form actions by "route id ?/name"; the access matrix fails for any action missing here. */
+export const ACTIONS: Record<string, AccessRule> = {
+	'/(app)/assignments ?/assign': { roles: ADVISERS },
+	'/(app)/assignments ?/end': { roles: ADVISERS },
+	'/(app)/blocks/[id] ?/issue': { path: '/blocks/{block}', roles: ADVISERS },
+	'/(app)/blocks/[id] ?/withdraw': { path: '/blocks/{block}', roles: ADVISERS },
+	'/(app)/blocks/[id] ?/acknowledge': { path: '/blocks/{block}', roles: ['grower'] },
+	'/(app)/blocks/[id] ?/applied': { path: '/blocks/{block}', roles: [...ADVISERS, 'grower'] },
+	'/(app)/blocks/[id]/boundary ?/default': { path: '/blocks/{block}/boundary', roles: ADVISERS },
+	'/(app)/blocks/[id]/recommend ?/draft': { path: '/blocks/{block}/recommend', roles: ADVISERS },
+	'/(app)/blocks/[id]/recommend ?/issue': { path: '/blocks/{block}/recommend', roles: ADVISERS },
+	'/(app)/import ?/preview': { roles: ADVISERS },
+	'/(app)/import ?/commit': { roles: ADVISERS },
+	'/(app)/library/products ?/save': { roles: ADVISERS },
+	'/(app)/library/products ?/retire': { roles: ADVISERS },
+	'/(app)/library/products ?/restore': { roles: ADVISERS },
+	'/(app)/library/thresholds ?/save': { roles: ADVISERS },
+	'/(app)/library/thresholds ?/retire': { roles: ADVISERS },
+	'/(app)/library/thresholds ?/restore': { roles: ADVISERS },
+	'/(app)/my-farms ?/acknowledge': { roles: ['grower'] },
+	'/(app)/my-farms ?/applied': { roles: ['grower'] },
+	'/(app)/recommendations ?/issue': { roles: ADVISERS },
+	'/(app)/recommendations ?/withdraw': { roles: ADVISERS },
+	'/(app)/recommendations ?/applied': { roles: ADVISERS },
+	'/(app)/traps ?/add': { roles: ADVISERS },
+	'/(app)/weather ?/day': { roles: ['agronomist', 'admin', 'scout'] },
+	'/(app)/weather ?/csv': { roles: ['agronomist', 'admin', 'scout'] }
+};
+
+/** Actions anyone may post (sign-in and sign-out). */
+export const PUBLIC_ACTIONS = ['/signin ?/password', '/signin ?/link', '/signout ?/default'];

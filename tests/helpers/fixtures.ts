@@ -10,6 +10,9 @@ export async function demoIds(): Promise<Record<string, string>> {
 		`SELECT 'block' AS k, b.id FROM blocks b WHERE b.name = 'North Forty'
 		 UNION ALL SELECT 'farm', f.id FROM farms f WHERE f.name = 'Heronsbrook Farm'
 		 UNION ALL SELECT 'coopBlock', b.id FROM blocks b WHERE b.name = 'Brask Soy West'
+		 UNION ALL SELECT 'otherGrowerBlock', b.id FROM blocks b WHERE b.name = 'River Flat'
+		 UNION ALL SELECT 'coopTrap', t.id FROM traps t JOIN farms f ON f.id = t.farm_id WHERE f.name = 'Brask Farm'
+		 UNION ALL SELECT 'coopVisit', MAX(v.id) FROM visits v JOIN blocks b ON b.id = v.block_id WHERE b.name = 'Brask Soy West'
 		 UNION ALL SELECT 'trap', t.id FROM traps t JOIN farms f ON f.id = t.farm_id WHERE f.name = 'Heronsbrook Farm'
 		 UNION ALL SELECT 'visit', MAX(v.id) FROM visits v JOIN blocks b ON b.id = v.block_id WHERE b.name = 'North Forty'
 		 UNION ALL SELECT 'recommendation', MAX(r.id) FROM recommendations r JOIN blocks b ON b.id = r.block_id WHERE b.name = 'North Forty'`,

@@ -1,0 +1,205 @@
+import { randomUUID } from 'node:crypto';
+import { setTimeout as sleep } from 'node:timers/promises';
+import mariadb from 'mariadb';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startMariaDB } from '../../scripts/lib/mariadb';
+import {
+	dataDir,
+	ownDatabase,
+	PORT_BASE,
+	startApp,
+	type AppInstance,
+	type MariaDB
+} from '../helpers/instance';
+
+// Faults against servers of this test's own: kill -9 of the app during a steady stream of visit
+// submissions, and MariaDB stopped and restarted mid-stream. Figures are printed.
+const DB_PORT = PORT_BASE + 7;
+const APP_PORT = PORT_BASE + 8;
+const RATE_PER_S = 50;
+
+let db: MariaDB;
+let dbUrl: string;
+let app: AppInstance;
+let blockId: number;
+let raw: mariadb.Pool;
+
+async function signIn(url: string) {
+	const res = await fetch(`${url}/signin?/password`, {
+		method: 'POST',
+		redirect: 'manual',
+		headers: {
+			origin: url,
+			accept: 'text/html',
+			'content-type': 'application/x-www-form-urlencoded'
+		},
+		body: new URLSearchParams({
+			providerId: 'credentials',
+			email: 'tomas@brackenridge.test',
+			password: 'cornicle-demo',
+			redirectTo: '/'
+		})
+	});
+	return res.headers
+		.getSetCookie()
+		.map((c) => c.split(';')[0])
+		.filter((c) => !c.endsWith('='))
+		.join('; ');
+}
+
+/** A phone-like sender: each visit has its own key; failed sends wait in a queue for resending. */
+function sender(url: () => string, cookie: string) {
+	const answered = new Set<string>();
+	const queue: string[] = [];
+	const statuses = new Map<number | string, number>();
+	const body = (key: string, i: number) =>
+		JSON.stringify({
+			clientKey: key,
+			blockId,
+			visitedOn: new Date(Date.now() - (i % 20) * 86_400_000).toISOString().slice(0, 10),
+			sampleUnit: 'plant',
+			mode: 'count',
+			counts: Array.from({ length: 10 }, (_, s) => ({ stop: s + 1, unit: 1, aphids: (i + s) % 40 }))
+		});
+	let n = 0;
+	const send = async (key: string) => {
+		try {
+			const res = await fetch(`${url()}/api/visits`, {
+				method: 'POST',
+				headers: { 'content-type': 'application/json', cookie, origin: url() },
+				body: body(key, n++),
+				signal: AbortSignal.timeout(15_000)
+			});
+			await res.arrayBuffer();
+			statuses.set(res.status, (statuses.get(res.status) ?? 0) + 1);
+			if (res.ok) answered.add(key);
+			else queue.push(key);
+			return res.status;
+		} catch {
+			statuses.set('network', (statuses.get('network') ?? 0) + 1);
+			queue.push(key);
+			return 0;
+		}
+	};
+	/** Sends new visits at RATE_PER_S for `ms`, without waiting for answers. */
+	const stream = async (ms: number) => {
+		const inflight: Promise<unknown>[] = [];
+		const until = Date.now() + ms;
+		while (Date.now() < until) {
+			inflight.push(send(`fault-${randomUUID()}`));
+			await sleep(1000 / RATE_PER_S);
+		}
+		await Promise.all(inflight);
+	};
+	const drain = async () => {
+		for (let round = 0; round < 20 && queue.length; round++) {
+			const batch = queue.splice(0);
+			await Promise.all(batch.map(send));
+			if (queue.length) await sleep(500);
+		}
+	};
+	return { answered, queue, statuses, stream, drain, send };
+}
+
+async function stored(prefix: string) {
+	const rows = await raw.query(
+		`SELECT client_key AS k, COUNT(*) AS n FROM visits WHERE client_key LIKE ? GROUP BY client_key`,
+		[`${prefix}%`]
+	);
+	return new Map<string, number>(rows.map((r: { k: string; n: bigint }) => [r.k, Number(r.n)]));
+}
+
+beforeAll(async () => {
+	({ db, url: dbUrl } = await ownDatabase('faults', DB_PORT));
+	app = await startApp(APP_PORT, dbUrl, { ALERTS_WORKER: 'off' });
+	const u = new URL(dbUrl);
+	raw = mariadb.createPool({
+		host: u.hostname,
+		port: Number(u.port),
+		user: 'cornicle',
+		password: 'cornicle',
+		database: 'cornicle_own',
+		connectionLimit: 3
+	});
+	const [b] = await raw.query(`SELECT id FROM blocks WHERE name = 'North Forty'`);
+	blockId = Number(b.id);
+});
+
+afterAll(async () => {
+	await app?.kill();
+	await raw?.end().catch(() => {});
+	await db?.stop();
+});
+
+describe('faults', () => {
+	it('kill -9 of the app mid-stream loses no answered visit and stores none twice', async () => {
+		const cookie = await signIn(app.url);
+		const s = sender(() => app.url, cookie);
+		const streaming = s.stream(4_000);
+		await sleep(1_500);
+		await app.kill('SIGKILL');
+		await streaming;
+		app = await startApp(APP_PORT, dbUrl, { ALERTS_WORKER: 'off' });
+		// The phone resends what failed, and (as a retry after a lost answer would) some that landed.
+		const again = [...s.answered].slice(0, 20);
+		s.queue.push(...again);
+		await s.drain();
+		const rows = await stored('fault-');
+		const missing = [...s.answered].filter((k) => !rows.has(k));
+		const doubled = [...rows.values()].filter((n) => n > 1).length;
+		console.log(
+			`Faults, kill -9: ${s.answered.size} visits answered 2xx, ${missing.length} missing after restart, ${doubled} stored twice; answers ${JSON.stringify(Object.fromEntries(s.statuses))}`
+		);
+		expect(s.statuses.get('network') ?? 0, 'the kill interrupted some requests').toBeGreaterThan(0);
+		expect(missing).toEqual([]);
+		expect(doubled).toBe(0);
+		expect(s.queue).toEqual([]);
+	});
+
+	it('MariaDB stopped mid-stream: clear 503s while down, recovery without an app restart', async () => {
+		const cookie = await signIn(app.url);
+		const s = sender(() => app.url, cookie);
+		await s.stream(500);
+		await db.stop();
+		const down = await fetch(`${app.url}/api/visits`, {
+			method: 'POST',
+			headers: { 'content-type': 'application/json', cookie, origin: app.url },
+			body: JSON.stringify({
+				clientKey: `fault-${randomUUID()}`,
+				blockId,
+				visitedOn: '2026-11-01',
+				sampleUnit: 'plant',
+				mode: 'count',
+				counts: [{ stop: 1, unit: 1, aphids: 3 }]
+			})
+		});
+		expect(down.status).toBe(503);
+		expect(((await down.json()) as { message: string }).message).toMatch(
+			/database is unavailable/i
+		);
+		await s.stream(1_500);
+		const pid = app.proc.pid;
+		db = await startMariaDB(dataDir('faults'), DB_PORT);
+		const t0 = Date.now();
+		let recovered = -1;
+		while (Date.now() - t0 < 30_000) {
+			const st = await s.send(`fault-${randomUUID()}`);
+			if (st >= 200 && st < 300) {
+				recovered = (Date.now() - t0) / 1000;
+				break;
+			}
+			await sleep(200);
+		}
+		await s.drain();
+		const rows = await stored('fault-');
+		console.log(
+			`Faults, MariaDB outage: answers while down ${JSON.stringify(Object.fromEntries(s.statuses))}; recovered ${recovered.toFixed(1)} s after restart, same app process: ${app.proc.pid === pid}`
+		);
+		expect(s.statuses.get(500) ?? 0, 'no 500 while the database is away').toBe(0);
+		expect(s.statuses.get(503) ?? 0).toBeGreaterThan(0);
+		expect(recovered).toBeGreaterThanOrEqual(0);
+		expect(recovered).toBeLessThan(10);
+		expect(app.proc.exitCode).toBeNull();
+		expect([...s.answered].filter((k) => !rows.has(k))).toEqual([]);
+	});
+});
