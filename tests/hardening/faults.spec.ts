@@ -1,4 +1,6 @@
+import { spawn, type ChildProcess } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
+import { join } from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
 import mariadb from 'mariadb';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -201,5 +203,78 @@ describe('faults', () => {
 		expect(recovered).toBeLessThan(10);
 		expect(app.proc.exitCode).toBeNull();
 		expect([...s.answered].filter((k) => !rows.has(k))).toEqual([]);
+	});
+
+	it('the SMS provider down for a while: alerts wait in the outbox and drain once it is back', async () => {
+		const smsPort = PORT_BASE + 9;
+		const root = join(import.meta.dirname, '../..');
+		const startFake = async () => {
+			const p = spawn(join(root, 'node_modules/.bin/tsx'), ['mocks/sms/server.ts'], {
+				cwd: root,
+				env: { ...process.env, SMS_FAKE_PORT: String(smsPort) },
+				stdio: 'ignore'
+			});
+			await waitForUrl(`http://127.0.0.1:${smsPort}/`);
+			return p;
+		};
+		const stopFake = (p: ChildProcess) =>
+			new Promise((r) => {
+				p.once('exit', r);
+				p.kill('SIGKILL');
+			});
+		const sender = await startApp(PORT_BASE + 10, dbUrl, {
+			ALERTS_WORKER: 'on',
+			TWILIO_BASE_URL: `http://127.0.0.1:${smsPort}`,
+			ALERTS_BACKOFF_MS: '300',
+			ALERTS_BACKOFF_MAX_MS: '2000',
+			ALERTS_MAX_ATTEMPTS: '50',
+			ALERTS_POLL_MS: '200',
+			ALERTS_SEND_TIMEOUT_MS: '2000'
+		});
+		try {
+			const [org] = await raw.query(`SELECT id FROM organisations WHERE slug = 'brackenridge'`);
+			const n = 30;
+			await raw.batch(
+				`INSERT INTO notifications (organisation_id, channel, kind, dedupe_key, to_address, body_text, status, attempts, not_before, created_at, updated_at)
+				 VALUES (?, 'sms', 'test', ?, ?, ?, 'pending', 0, NOW(3), NOW(), NOW())`,
+				Array.from({ length: n }, (_, i) => [
+					org.id,
+					`outage-${i}`,
+					`+1701555${3000 + i}`,
+					`Outage test ${i}`
+				])
+			);
+			await sleep(3_000); // the provider is down: every attempt fails
+			const [waiting] = await raw.query(
+				`SELECT SUM(status IN ('pending', 'sending')) AS pending, SUM(status = 'failed') AS failed, MAX(attempts) AS tries
+				   FROM notifications WHERE dedupe_key LIKE 'outage-%'`
+			);
+			const fake = await startFake();
+			const t0 = Date.now();
+			let done = 0;
+			while (Date.now() - t0 < 30_000) {
+				const [r] = await raw.query(
+					`SELECT COUNT(*) AS n FROM notifications WHERE dedupe_key LIKE 'outage-%' AND status IN ('sent', 'delivered')`
+				);
+				done = Number(r.n);
+				if (done === n) break;
+				await sleep(200);
+			}
+			const drained = (Date.now() - t0) / 1000;
+			const got = (await (await fetch(`http://127.0.0.1:${smsPort}/_fake/messages`)).json()) as {
+				body: string;
+			}[];
+			const ours = got.filter((m) => m.body?.startsWith('Outage test'));
+			console.log(
+				`Faults, SMS provider down 3 s: ${Number(waiting.pending)} of ${n} alerts waiting (${Number(waiting.failed ?? 0)} failed, up to ${Number(waiting.tries)} tries); drained ${done} in ${drained.toFixed(1)} s once back; ${ours.length} SMS received`
+			);
+			await stopFake(fake);
+			expect(Number(waiting.pending)).toBe(n);
+			expect(done).toBe(n);
+			expect(ours.length).toBe(n);
+			expect(new Set(ours.map((m) => m.body)).size).toBe(n);
+		} finally {
+			await sender.kill();
+		}
 	});
 });

@@ -1,18 +1,20 @@
 import { randomUUID } from 'node:crypto';
 import { hash } from '@node-rs/argon2';
 import type { Sequelize } from 'sequelize';
-import { connect } from '../../src/lib/server/db/connect';
+import { db } from '../../src/lib/server/db';
 import { Block, Farm, Membership, Organisation, User } from '../../src/lib/server/db/models';
 import type { Role } from '../../src/lib/roles';
 
 let sequelize: Sequelize | null = null;
 
-/** The test database that `npm test` created, migrated and seeded. */
+/**
+ * The test database that `npm test` created, migrated and seeded, through the app's own
+ * connection, so server code called from a test shares it (models bind to one instance).
+ */
 export function testDb(): Sequelize {
 	if (!sequelize) {
-		const url = process.env.DATABASE_URL;
-		if (!url) throw new Error('DATABASE_URL is not set: run the tests through `npm test`');
-		sequelize = connect({ url });
+		if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the tests through `npm test`');
+		sequelize = db();
 	}
 	return sequelize;
 }
