@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { QueryTypes } from 'sequelize';
-import { call } from '../helpers/app';
+import { call, type As } from '../helpers/app';
 import {
 	buildBlock,
 	buildFarm,
@@ -15,7 +15,7 @@ interface FC {
 	type: string;
 	features: { id: number; geometry: { type: string }; properties: Record<string, unknown> }[];
 }
-const get = async (path: string, as: Parameters<typeof call>[1]['as'] = 'agronomist') => {
+const get = async (path: string, as: As = 'agronomist') => {
 	const res = await call(path, { as });
 	return { status: res.status, body: (await res.json()) as FC & { issues?: { path: string }[] } };
 };

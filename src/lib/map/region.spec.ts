@@ -89,8 +89,9 @@ describe('medianLevel', () => {
 describe('weeksBetween', () => {
 	it('gives whole ISO weeks from Monday, 10 by default', () => {
 		const w = weeksBetween({}, new Date('2026-07-08T12:00:00Z'));
-		expect('weeks' in w && w.weeks.length).toBe(10);
-		expect('weeks' in w && w.weeks[9]).toEqual({ start: '2026-07-06', next: '2026-07-13' });
+		if (!('weeks' in w) || !w.weeks) throw new Error('expected weeks');
+		expect(w.weeks).toHaveLength(10);
+		expect(w.weeks[9]).toEqual({ start: '2026-07-06', next: '2026-07-13' });
 	});
 	it('refuses more than 26 weeks', () => {
 		expect(weeksBetween({ from: '2026-01-01', to: '2026-12-01' })).toMatchObject({

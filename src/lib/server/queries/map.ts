@@ -10,24 +10,6 @@ export interface MapScope {
 	scoutId?: number;
 }
 
-export interface MapBlockRow {
-	id: number;
-	name: string;
-	farm: string;
-	crop: string;
-	cropName: string;
-	pest: string;
-	pestName: string;
-	areaHa: number;
-	level: LevelKey | null;
-	reason: string | null;
-	lastVisitOn: string | null;
-	centroidLat: number;
-	centroidLon: number;
-	/** The stored GeoJSON text (not parsed: the endpoint splices it into its answer). */
-	boundary: string | null;
-}
-
 function scopeSql(scope: MapScope, alias: { farm: string; block?: string }) {
 	const where: string[] = [];
 	const args: unknown[] = [];
@@ -50,23 +32,31 @@ function scopeSql(scope: MapScope, alias: { farm: string; block?: string }) {
 	return { where, args };
 }
 
+// A JSON null stored by an ORM counts as no boundary, as SQL NULL does.
+const DRAWN = `(b.boundary IS NOT NULL AND b.boundary <> 'null')`;
+
+const levelAsOf = (col: 'level' | 'reason') =>
+	`(SELECT a.${col} FROM assessments a WHERE a.block_id = b.id AND a.computed_at < DATE_ADD(?, INTERVAL 1 DAY) ORDER BY a.computed_at DESC, a.id DESC LIMIT 1)`;
+
 /**
- * Blocks for the map in one query: inside `bbox` (overlapping it), filtered by crop and pest
- * codes; with `on`, the level from the newest assessment up to the end of that day.
+ * Blocks for the map as GeoJSON FeatureCollection text, built by MariaDB in one query: inside
+ * `bbox` (overlapping it), filtered by crop and pest codes; with `on`, the level from the newest
+ * assessment up to the end of that day. The list carries only what the map draws and filters
+ * on (BlockFeatureProps); `detail` adds the level's reason and the crop and pest names.
  */
-export function mapBlocks(
+export async function mapBlocks(
 	scope: MapScope,
-	q: { bbox?: BBox; crop?: string; pest?: string; on?: string; blockId?: number }
-) {
-	const where = ['b.organisation_id = ?'];
+	q: { bbox?: BBox; crop?: string; pest?: string; on?: string; blockId?: number },
+	detail = false
+): Promise<string> {
 	const args: unknown[] = [];
-	const levelSql = q.on
-		? `(SELECT a.level FROM assessments a WHERE a.block_id = b.id AND a.computed_at < DATE_ADD(?, INTERVAL 1 DAY) ORDER BY a.computed_at DESC, a.id DESC LIMIT 1)`
-		: 'b.current_level';
-	const reasonSql = q.on
-		? `(SELECT a.reason FROM assessments a WHERE a.block_id = b.id AND a.computed_at < DATE_ADD(?, INTERVAL 1 DAY) ORDER BY a.computed_at DESC, a.id DESC LIMIT 1)`
-		: 'b.current_reason';
-	if (q.on) args.push(q.on, q.on);
+	if (q.on) args.push(q.on);
+	if (q.on && detail) args.push(q.on);
+	const level = q.on ? levelAsOf('level') : 'b.current_level';
+	const extra = detail
+		? `, 'reason', ${q.on ? levelAsOf('reason') : 'b.current_reason'}, 'cropName', c.name, 'pestName', p.name`
+		: '';
+	const where = ['b.organisation_id = ?'];
 	args.push(scope.organisationId);
 	const s = scopeSql(scope, { farm: 'f', block: 'b' });
 	where.push(...s.where);
@@ -87,19 +77,24 @@ export function mapBlocks(
 		where.push('p.code = ?');
 		args.push(q.pest);
 	}
-	return db().query<MapBlockRow>(
-		`SELECT b.id, b.name, f.name AS farm, c.code AS crop, c.name AS cropName, p.code AS pest,
-		        p.name AS pestName, b.area_ha AS areaHa, ${levelSql} AS level, ${reasonSql} AS reason,
-		        b.last_visit_on AS lastVisitOn, b.centroid_lat AS centroidLat,
-		        b.centroid_lon AS centroidLon, CAST(b.boundary AS CHAR) AS boundary
+	// The stored boundary was checked when saved, so it is spliced in as it is.
+	const [row] = await db().query<{ fc: string | null }>(
+		`SET STATEMENT group_concat_max_len = 1073741824 FOR
+		 SELECT GROUP_CONCAT(CONCAT(
+		          '{"type":"Feature","id":', b.id, ',"geometry":',
+		          IF(${DRAWN}, b.boundary, JSON_OBJECT('type', 'Point', 'coordinates', JSON_ARRAY(b.centroid_lon, b.centroid_lat))),
+		          ',"properties":', JSON_OBJECT('name', b.name, 'farm', f.name, 'crop', c.code, 'pest', p.code,
+		            'areaHa', b.area_ha, 'level', ${level}, 'lastVisitOn', b.last_visit_on,
+		            'drawn', ${DRAWN} ${extra}), '}')
+		          ORDER BY b.id SEPARATOR ',') AS fc
 		   FROM blocks b
 		   JOIN farms f ON f.id = b.farm_id
 		   JOIN crops c ON c.id = b.crop_id
 		   JOIN pests p ON p.id = b.pest_id
-		  WHERE ${where.join(' AND ')}
-		  ORDER BY b.id`,
+		  WHERE ${where.join(' AND ')}`,
 		{ replacements: args, type: QueryTypes.SELECT }
 	);
+	return `{"type":"FeatureCollection","features":[${row?.fc ?? ''}]}`;
 }
 
 export interface MapTrapRow {

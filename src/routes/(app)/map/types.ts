@@ -1,3 +1,8 @@
+import type { BlockFeatureProps } from '$lib/map/geojson';
+
+/** A block on the map: the feature's properties with its id. */
+export type MapBlock = BlockFeatureProps & { id: number };
+
 export interface TrapProps {
 	id: number;
 	name: string;

@@ -1,5 +1,4 @@
 import { json } from '@sveltejs/kit';
-import { blocksFeatureCollection } from '$lib/map/geojson';
 import { blocksQuery, parseQuery } from '$lib/map/params';
 import { requireRole } from '$lib/server/guard';
 import { mapScopeOf } from '$lib/server/map-scope';
@@ -11,8 +10,7 @@ export const GET: RequestHandler = async (event) => {
 	const user = requireRole(event, 'admin', 'agronomist', 'scout', 'grower');
 	const q = parseQuery(blocksQuery, event.url.searchParams);
 	if (!q.ok) return json(q.body, { status: 400 });
-	const rows = await mapBlocks(mapScopeOf(user), q.data);
-	return new Response(blocksFeatureCollection(rows), {
+	return new Response(await mapBlocks(mapScopeOf(user), q.data), {
 		headers: { 'content-type': 'application/geo+json', 'cache-control': 'private, no-store' }
 	});
 };

@@ -1,11 +1,11 @@
 import { error, json } from '@sveltejs/kit';
 import { z } from 'zod';
 import { checkBoundary } from '$lib/geo/validate';
+import { blocksQuery, parseQuery } from '$lib/map/params';
 import { requireRole } from '$lib/server/guard';
 import { blockForBoundary, saveBoundary } from '$lib/server/boundaries';
 import { mapScopeOf } from '$lib/server/map-scope';
 import { mapBlocks } from '$lib/server/queries/map';
-import { blocksFeatureCollection } from '$lib/map/geojson';
 import type { RequestHandler } from './$types';
 
 const idParam = z.coerce.number().int().positive();
@@ -16,13 +16,17 @@ function blockId(raw: string) {
 	return id.data;
 }
 
-/** The block's boundary as a GeoJSON Feature (its centre point when none is drawn yet). */
+/**
+ * The block as a GeoJSON Feature in detail (its centre point when no boundary is drawn yet);
+ * the map's card reads the level's reason from here (?on=YYYY-MM-DD: as it stood that day).
+ */
 export const GET: RequestHandler = async (event) => {
 	const user = requireRole(event, 'admin', 'agronomist', 'scout', 'grower');
 	const id = blockId(event.params.id);
-	const rows = await mapBlocks(mapScopeOf(user), { blockId: id });
-	if (!rows.length) error(404, 'No such block.');
-	const fc = JSON.parse(blocksFeatureCollection(rows));
+	const q = parseQuery(blocksQuery.pick({ on: true }), event.url.searchParams);
+	if (!q.ok) return json(q.body, { status: 400 });
+	const fc = JSON.parse(await mapBlocks(mapScopeOf(user), { blockId: id, on: q.data.on }, true));
+	if (!fc.features.length) error(404, 'No such block.');
 	return json(fc.features[0], { headers: { 'content-type': 'application/geo+json' } });
 };
 
