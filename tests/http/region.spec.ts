@@ -105,9 +105,13 @@ describe('GET /api/region/cells for the demo regional coordinator', () => {
 		expect(weeks.some((w) => w.alatesPerTrapWeek != null)).toBe(true);
 	});
 
-	it('answers 400 naming the field for a bad resolution or range', async () => {
-		const a = JSON.parse((await overview('regional', '?res=9')).text);
-		expect(a.issues[0].path).toBe('res');
+	it('keeps one resolution and answers 400 naming the field for a bad range', async () => {
+		// A second resolution could be subtracted from the first to single out a farm.
+		const a = JSON.parse((await overview('regional', '?res=6')).text) as RegionOverview;
+		expect(a.resolution).toBe(5);
+		const c = await overview('regional', '?from=2026-07-10&to=2026-07-01');
+		expect(c.status).toBe(400);
+		expect(JSON.parse(c.text).issues[0].path).toBe('from');
 		const b = await overview('regional', '?from=2026-01-01&to=2026-12-01');
 		expect(b.status).toBe(400);
 		expect(JSON.parse(b.text).message).toMatch(/at most 26 weeks/);

@@ -46,18 +46,12 @@ export const trapsQuery = z
 		path: ['from']
 	});
 
-/** Query of GET /api/region/cells: whole weeks from `from` to `to`, at an H3 resolution. */
+/**
+ * Query of GET /api/region/cells: whole weeks from `from` to `to`. The H3 resolution is fixed
+ * (no parameter): answers at two resolutions could be subtracted to single out a farm.
+ */
 export const regionQuery = z
-	.object({
-		from: isoDay.optional(),
-		to: isoDay.optional(),
-		res: z.coerce
-			.number()
-			.int('Use a whole number.')
-			.min(4, 'Use resolution 4, 5 or 6.')
-			.max(6, 'Use resolution 4, 5 or 6.')
-			.optional()
-	})
+	.object({ from: isoDay.optional(), to: isoDay.optional() })
 	.refine((q) => !q.from || !q.to || q.from <= q.to, {
 		message: 'from must not be after to.',
 		path: ['from']

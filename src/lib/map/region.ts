@@ -5,11 +5,11 @@ import { LEVEL_KEYS } from '$lib/domain';
 /** A cell (or a cell's week) is shown only when at least this many farms stand behind it. */
 export const FARM_FLOOR = 3;
 /**
- * H3 resolution 5 (cells of about 250 km², edge about 9.9 km, from h3-js
+ * The one H3 resolution of the overview, 5 (cells of about 250 km², edge about 9.9 km, from h3-js
  * getHexagonEdgeLengthAvg): coarse enough that the demo valley's busiest cell holds 4 of its
  * 6 farms, fine enough to show a front of first flights moving across a county.
  */
-export const DEFAULT_RESOLUTION = 5;
+export const REGION_RESOLUTION = 5;
 
 export interface RegionInputRow {
 	kind: 'farm' | 'level' | 'trap';
@@ -73,7 +73,7 @@ export function medianLevel(c: LevelCounts): LevelKey | null {
 export function aggregateRegion(
 	rows: RegionInputRow[],
 	weeks: string[],
-	resolution = DEFAULT_RESOLUTION
+	resolution = REGION_RESOLUTION
 ): RegionOverview {
 	const cellOfFarm = new Map<number, string>();
 	const farmsOfCell = new Map<string, Set<number>>();

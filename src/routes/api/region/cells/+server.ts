@@ -1,6 +1,6 @@
 import { json } from '@sveltejs/kit';
 import { parseQuery, regionQuery } from '$lib/map/params';
-import { aggregateRegion, DEFAULT_RESOLUTION } from '$lib/map/region';
+import { aggregateRegion, REGION_RESOLUTION } from '$lib/map/region';
 import { weeksBetween } from '$lib/map/weeks';
 import { requireRole } from '$lib/server/guard';
 import { regionRows } from '$lib/server/queries/map';
@@ -25,7 +25,7 @@ export const GET: RequestHandler = async (event) => {
 	const overview = aggregateRegion(
 		rows,
 		w.weeks.map((x) => x.start),
-		q.data.res ?? DEFAULT_RESOLUTION
+		REGION_RESOLUTION
 	);
 	return json(overview, {
 		headers: { 'content-type': 'application/geo+json', 'cache-control': 'private, no-store' }
