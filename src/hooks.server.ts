@@ -3,6 +3,7 @@ import { sequence } from '@sveltejs/kit/hooks';
 import { building } from '$app/environment';
 import { handle as authHandle } from '$lib/server/auth';
 import { assertSafeForProduction } from '$lib/server/config';
+import { formGuard } from '$lib/server/form-guard';
 import { isPublicPath } from '$lib/server/public-paths';
 import {
 	databaseOutage,
@@ -49,7 +50,14 @@ const guard: Handle = async ({ event, resolve }) => {
 	return resolve(event);
 };
 
-export const handle = sequence(securityHeaders, databaseOutage, authHandle, loadUser, guard);
+export const handle = sequence(
+	securityHeaders,
+	databaseOutage,
+	authHandle,
+	loadUser,
+	guard,
+	formGuard
+);
 
 export const handleError: HandleServerError = ({ error, event, status, message }) => {
 	if (isDatabaseUnavailable(error)) {

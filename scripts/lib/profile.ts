@@ -31,7 +31,7 @@ export function profile(kind: 'demo' | 'test' | 'bench'): Profile {
 		};
 	}
 	const slot = process.env.CORNICLE_SLOT ?? (kind === 'bench' ? 'bench' : '0');
-	const n = (kind === 'bench' ? 9 : 0) + (Number(process.env.CORNICLE_SLOT) || 0);
+	const n = (kind === 'bench' ? 50 : 0) + (Number(process.env.CORNICLE_SLOT) || 0);
 	const off = 10 + n * 10;
 	return {
 		name: `${kind}-${slot}`,

@@ -54,6 +54,21 @@ interface Tally {
 	resets: number;
 }
 
+/** A kept-alive socket the server has closed fails once; ask a few times before calling it down. */
+async function appIsUp() {
+	for (let i = 0; i < 5; i++) {
+		if (
+			await fetch(`${APP}/api/health`).then(
+				(r) => r.ok,
+				() => false
+			)
+		)
+			return true;
+		await new Promise((r) => setTimeout(r, 300));
+	}
+	return false;
+}
+
 async function pool<T>(items: T[], fn: (item: T) => Promise<void>) {
 	let next = 0;
 	await Promise.all(
@@ -101,10 +116,7 @@ async function fuzzTarget(
 			} catch (e) {
 				// A server that answers before reading a large body closes the socket under the
 				// client; that is a refusal, not a crash, as long as the app is still up.
-				const up = await fetch(`${APP}/api/health`).then(
-					(r) => r.ok,
-					() => false
-				);
+				const up = await appIsUp();
 				if (!up) throw new Error(`${label}: the app went down on payload ${i}: ${e}`);
 				tally.payloads++;
 				tally.resets++;
