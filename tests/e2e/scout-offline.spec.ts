@@ -41,74 +41,90 @@ async function quickVisit(page: Page, blockId: number, unit: RegExp) {
 }
 
 describe('offline rounds', () => {
-	it('files two visits and a trap reading without signal; each arrives exactly once', async () => {
-		const context = await browser.newContext({ baseURL: APP, viewport: PHONE });
-		let page = await context.newPage();
-		await signInAs(page, 'scout');
-		await page
-			.getByTestId('offline-ready')
-			.getByText('Saved on this phone')
-			.waitFor({ timeout: 30_000 });
-		await page.evaluate(() => navigator.serviceWorker.ready.then(() => true));
+	it(
+		'files two visits and a trap reading without signal; each arrives exactly once',
+		{ timeout: 180_000 },
+		async () => {
+			const context = await browser.newContext({ baseURL: APP, viewport: PHONE });
+			let page = await context.newPage();
+			await signInAs(page, 'scout');
+			await page
+				.getByTestId('offline-ready')
+				.getByText('Saved on this phone')
+				.waitFor({ timeout: 30_000 });
+			// The worker must be active before the connection goes (it installs in the background).
+			await expect
+				.poll(
+					() =>
+						page.evaluate(
+							async () => (await navigator.serviceWorker.getRegistration('/rounds'))?.active?.state
+						),
+					{ timeout: 30_000 }
+				)
+				.toBe('activated');
 
-		const before = {
-			pea: await q('SELECT COUNT(*) AS n FROM visits WHERE block_id = ?', [ids['Pea Field']]),
-			wheat: await q('SELECT COUNT(*) AS n FROM visits WHERE block_id = ?', [ids['Home Wheat']]),
-			trap: await q('SELECT COUNT(*) AS n FROM trap_readings WHERE trap_id = ?', [ids.trap])
-		};
-		const now = async () => ({
-			pea: await q('SELECT COUNT(*) AS n FROM visits WHERE block_id = ?', [ids['Pea Field']]),
-			wheat: await q('SELECT COUNT(*) AS n FROM visits WHERE block_id = ?', [ids['Home Wheat']]),
-			trap: await q('SELECT COUNT(*) AS n FROM trap_readings WHERE trap_id = ?', [ids.trap])
-		});
-
-		await context.setOffline(true);
-		await quickVisit(page, ids['Pea Field'], /Next sweep/);
-		expect(await page.evaluate(() => navigator.onLine)).toBe(false);
-		await quickVisit(page, ids['Home Wheat'], /Next tiller/);
-		await page.goto(`/rounds/traps/${ids.trap}`);
-		await page.getByRole('button', { name: 'soybean aphid plus 5' }).click();
-		await page.getByRole('button', { name: 'Save reading' }).click();
-		await page.getByTestId('reading-saved').waitFor();
-
-		// The browser tab closes; what waits is still on the phone.
-		await page.close();
-		page = await context.newPage();
-		await page.goto('/rounds/outbox');
-		await expect.poll(() => page.locator('li[data-status="waiting"]').count()).toBe(3);
-		expect(await now()).toEqual(before);
-
-		await context.setOffline(false);
-		await page.evaluate(() => window.dispatchEvent(new Event('online')));
-		await expect
-			.poll(() => page.locator('li[data-status="sent"]').count(), { timeout: 20_000 })
-			.toBe(3);
-		const after = { pea: before.pea + 1, wheat: before.wheat + 1, trap: before.trap + 1 };
-		expect(await now()).toEqual(after);
-
-		// Sending again (a retry after a lost answer) stores nothing new.
-		const items = await page.evaluate(async () => {
-			return await new Promise<{ url: string; body: unknown }[]>((resolve, reject) => {
-				const open = indexedDB.open('cornicle-offline');
-				open.onerror = () => reject(open.error);
-				open.onsuccess = () => {
-					const req = open.result.transaction('outbox').objectStore('outbox').getAll();
-					req.onsuccess = () =>
-						resolve(
-							req.result.map((i: { url: string; body: unknown }) => ({ url: i.url, body: i.body }))
-						);
-				};
+			const before = {
+				pea: await q('SELECT COUNT(*) AS n FROM visits WHERE block_id = ?', [ids['Pea Field']]),
+				wheat: await q('SELECT COUNT(*) AS n FROM visits WHERE block_id = ?', [ids['Home Wheat']]),
+				trap: await q('SELECT COUNT(*) AS n FROM trap_readings WHERE trap_id = ?', [ids.trap])
+			};
+			const now = async () => ({
+				pea: await q('SELECT COUNT(*) AS n FROM visits WHERE block_id = ?', [ids['Pea Field']]),
+				wheat: await q('SELECT COUNT(*) AS n FROM visits WHERE block_id = ?', [ids['Home Wheat']]),
+				trap: await q('SELECT COUNT(*) AS n FROM trap_readings WHERE trap_id = ?', [ids.trap])
 			});
-		});
-		expect(items).toHaveLength(3);
-		for (const i of items) {
-			const res = await page.request.post(i.url, { data: i.body, headers: { origin: APP } });
-			expect(res.status(), i.url).toBe(200);
+
+			await context.setOffline(true);
+			await quickVisit(page, ids['Pea Field'], /Next sweep/);
+			expect(await page.evaluate(() => navigator.onLine)).toBe(false);
+			await quickVisit(page, ids['Home Wheat'], /Next tiller/);
+			await page.goto(`/rounds/traps/${ids.trap}`);
+			await page.getByRole('button', { name: 'soybean aphid plus 5' }).click();
+			await page.getByRole('button', { name: 'Save reading' }).click();
+			await page.getByTestId('reading-saved').waitFor();
+
+			// The browser tab closes; what waits is still on the phone.
+			await page.close();
+			page = await context.newPage();
+			await page.goto('/rounds/outbox');
+			await expect.poll(() => page.locator('li[data-status="waiting"]').count()).toBe(3);
+			expect(await now()).toEqual(before);
+
+			await context.setOffline(false);
+			await page.evaluate(() => window.dispatchEvent(new Event('online')));
+			await expect
+				.poll(() => page.locator('li[data-status="sent"]').count(), { timeout: 20_000 })
+				.toBe(3);
+			const after = { pea: before.pea + 1, wheat: before.wheat + 1, trap: before.trap + 1 };
+			expect(await now()).toEqual(after);
+
+			// Sending again (a retry after a lost answer) stores nothing new.
+			const items = await page.evaluate(async () => {
+				return await new Promise<{ url: string; body: unknown }[]>((resolve, reject) => {
+					const open = indexedDB.open('cornicle-offline');
+					open.onerror = () => reject(open.error);
+					open.onsuccess = () => {
+						const req = open.result.transaction('outbox').objectStore('outbox').getAll();
+						req.onsuccess = () =>
+							resolve(
+								req.result.map((i: { url: string; body: unknown }) => ({
+									url: i.url,
+									body: i.body
+								}))
+							);
+					};
+				});
+			});
+			expect(items).toHaveLength(3);
+			for (const i of items) {
+				const res = await page.request.post(i.url, { data: i.body, headers: { origin: APP } });
+				expect(res.status(), i.url).toBe(200);
+			}
+			await page.getByRole('button', { name: 'Send now' }).click();
+			await page.reload();
+			await expect.poll(() => page.locator('li[data-status="sent"]').count()).toBe(3);
+			expect(await now()).toEqual(after);
+			await context.close();
 		}
-		await page.getByRole('button', { name: 'Send now' }).click();
-		await page.reload();
-		await expect.poll(() => page.locator('li[data-status="sent"]').count()).toBe(3);
-		expect(await now()).toEqual(after);
-		await context.close();
-	});
+	);
 });

@@ -7,7 +7,7 @@ import { closeTestDb, testDb } from '../helpers/db';
 const key = () => randomUUID().replaceAll('-', '');
 let ids: Record<string, number> = {};
 
-async function one<T>(sql: string, replacements: unknown[] = []) {
+async function one<T extends object>(sql: string, replacements: unknown[] = []): Promise<T> {
 	const [row] = await testDb().query<T>(sql, { replacements, type: QueryTypes.SELECT });
 	return row;
 }

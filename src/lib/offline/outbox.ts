@@ -174,8 +174,21 @@ async function flushAll() {
 	}
 }
 
+/** Items left "sending" by a closed tab go back to "waiting" (only when no tab is sending). */
+async function recover() {
+	const run = async () => {
+		for (const i of await outboxItems())
+			if (i.status === 'sending') await save({ ...i, status: 'waiting' });
+	};
+	if (!navigator.locks) return run();
+	await navigator.locks.request('cornicle-outbox', { ifAvailable: true }, (lock) =>
+		lock ? run() : undefined
+	);
+}
+
 /** Sends when the connection returns, when the page shows again, and every half minute. */
 export function startAutoFlush() {
+	void recover();
 	const go = () => {
 		if (navigator.onLine) void flush();
 	};
