@@ -32,7 +32,7 @@ export async function ensureBuild(slot?: string): Promise<string> {
 	const env = { ...process.env, ...(slot ? { CORNICLE_SLOT: slot } : {}) };
 	const code = await runCommand(
 		join(root, 'node_modules/.bin/vite'),
-		['build', '--logLevel', 'warn', '--bypass-lock'],
+		['build', '--logLevel', 'error', '--bypass-lock'],
 		{
 			cwd: root,
 			env
