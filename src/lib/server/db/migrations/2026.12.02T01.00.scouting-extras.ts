@@ -16,6 +16,8 @@ export const up: Migration = async ({ context: qi }) => {
 };
 
 export const down: Migration = async ({ context: qi }) => {
+	// MariaDB lets the uploaded_by foreign key use the composite index; give it its own first.
+	await qi.addIndex('photos', ['uploaded_by']);
 	await qi.removeIndex('photos', ['uploaded_by', 'sha256']);
 	await qi.removeColumn('visits', 'plan_decision');
 	await qi.removeColumn('visits', 'sampling_plan');
