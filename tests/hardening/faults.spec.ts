@@ -10,6 +10,7 @@ import {
 	ownDatabase,
 	PORT_BASE,
 	startApp,
+	waitForUrl,
 	type AppInstance,
 	type MariaDB
 } from '../helpers/instance';

@@ -13,7 +13,8 @@ let sequelize: Sequelize | null = null;
  */
 export function testDb(): Sequelize {
 	if (!sequelize) {
-		if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the tests through `npm test`');
+		if (!process.env.DATABASE_URL)
+			throw new Error('DATABASE_URL is not set: run the tests through `npm test`');
 		sequelize = db();
 	}
 	return sequelize;
