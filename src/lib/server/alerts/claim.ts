@@ -143,3 +143,13 @@ export async function recordOutcome(
 		{ replacements: { ...r, status, err: err.slice(0, 500) } }
 	);
 }
+
+/** Hands an unsent row back to the queue, as if this claim had not happened. */
+export async function releaseClaim(sequelize: Sequelize, me: string, row: ClaimedRow) {
+	await sequelize.query(
+		`UPDATE notifications SET status = 'pending', attempts = attempts - 1, claimed_by = NULL,
+		        claimed_at = :prev, updated_at = NOW(3)
+		  WHERE id = :id AND claimed_by = :me AND status = 'sending'`,
+		{ replacements: { id: row.id, me, prev: row.previousClaimAt } }
+	);
+}

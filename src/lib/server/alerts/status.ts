@@ -26,8 +26,10 @@ export async function applyStatus(
 	attempt: number,
 	cb: StatusCallback
 ): Promise<boolean> {
-	const match = `id = :id AND attempts = :a AND channel = 'sms'
-	  AND (provider_id = :sid OR (provider_id IS NULL AND status = 'sending'))`;
+	// The message id decides; the attempt only guards adopting an id the worker has not yet
+	// recorded (a late callback of an older attempt must not claim a newer one).
+	const match = `id = :id AND channel = 'sms'
+	  AND (provider_id = :sid OR (provider_id IS NULL AND status = 'sending' AND attempts = :a))`;
 	const r = { id, a: attempt, sid: cb.MessageSid };
 	let res: [unknown, number];
 	switch (cb.MessageStatus) {

@@ -1,7 +1,7 @@
 import { randomBytes } from 'node:crypto';
 import { hostname } from 'node:os';
 import type { Sequelize } from 'sequelize';
-import { claimBatch, recordOutcome, type ClaimedRow, type Outcome } from './claim';
+import { claimBatch, recordOutcome, releaseClaim, type ClaimedRow, type Outcome } from './claim';
 import { queueDigests } from './digest';
 import { mailTransport } from './mail';
 import { optedOut } from './recipients';
@@ -90,9 +90,17 @@ export class AlertWorker {
 		if (!rows.length) return 0;
 		const stopped = await optedOut(rows.filter((r) => r.channel === 'sms').map((r) => r.toAddress));
 		let next = 0;
+		const claimedAt = Date.now();
+		// A row is only sent while its lease has room for the send to finish; later ones go back
+		// to the queue, so a reclaiming worker never overlaps a slow but healthy one.
+		const latestStart = this.s.ALERTS_LEASE_MS - 2 * this.s.ALERTS_SEND_TIMEOUT_MS;
 		const lane = async () => {
 			while (next < rows.length) {
 				const row = rows[next++];
+				if (Date.now() - claimedAt > latestStart) {
+					await releaseClaim(this.sequelize, this.id, row);
+					continue;
+				}
 				const outcome =
 					stopped.has(row.toAddress) && row.channel === 'sms'
 						? ({
