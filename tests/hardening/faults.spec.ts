@@ -24,7 +24,7 @@ const RATE_PER_S = 50;
 let db: MariaDB;
 let dbUrl: string;
 let app: AppInstance;
-let blockId: number;
+let blockIds: number[] = [];
 let raw: mariadb.Pool;
 
 async function signIn(url: string) {
@@ -58,7 +58,7 @@ function sender(url: () => string, cookie: string) {
 	const body = (key: string, i: number) =>
 		JSON.stringify({
 			clientKey: key,
-			blockId,
+			blockId: blockIds[i % blockIds.length],
 			visitedOn: new Date(Date.now() - (i % 20) * 86_400_000).toISOString().slice(0, 10),
 			sampleUnit: 'plant',
 			mode: 'count',
@@ -124,8 +124,12 @@ beforeAll(async () => {
 		database: 'cornicle_own',
 		connectionLimit: 3
 	});
-	const [b] = await raw.query(`SELECT id FROM blocks WHERE name = 'North Forty'`);
-	blockId = Number(b.id);
+	// The scout's own blocks, so visits land as they would from a phone on a round.
+	const rows = await raw.query(
+		`SELECT a.block_id AS id FROM scouting_assignments a JOIN users u ON u.id = a.scout_id
+		  WHERE u.email = 'tomas@brackenridge.test' AND a.active = 1`
+	);
+	blockIds = rows.map((r: { id: number }) => Number(r.id));
 });
 
 afterAll(async () => {
@@ -169,7 +173,7 @@ describe('faults', () => {
 			headers: { 'content-type': 'application/json', cookie, origin: app.url },
 			body: JSON.stringify({
 				clientKey: `fault-${randomUUID()}`,
-				blockId,
+				blockId: blockIds[0],
 				visitedOn: '2026-11-01',
 				sampleUnit: 'plant',
 				mode: 'count',

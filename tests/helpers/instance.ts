@@ -1,7 +1,7 @@
 // Servers of a test's own (a MariaDB, an app instance, the SMS fake), for tests that kill or
 // stop them, so the shared test stack is never disturbed.
 import { spawn, type ChildProcess } from 'node:child_process';
-import { mkdirSync } from 'node:fs';
+import { createWriteStream, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
 import { connect } from '../../src/lib/server/db/connect';
@@ -69,7 +69,8 @@ export async function startApp(
 		},
 		stdio: ['ignore', 'ignore', 'pipe']
 	});
-	proc.stderr?.on('data', () => {});
+	// The instance's own log, for when a test needs to know why it answered as it did.
+	proc.stderr?.pipe(createWriteStream(dataDir(`app-${port}.log`), { flags: 'a' }));
 	await waitForUrl(`${url}/api/health`);
 	return {
 		url,

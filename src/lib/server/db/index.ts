@@ -1,4 +1,4 @@
-import { QueryTypes, type Sequelize } from 'sequelize';
+import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
 import { isDatabaseUnavailable } from '../resilience';
 import { config } from '../config';
 import { connect, connectRaw } from './connect';
@@ -63,3 +63,28 @@ export async function readQuery<T extends object>(
 }
 
 export * from './models';
+
+const RETRYABLE = new Set([1213, 1205]); // deadlock, lock wait timeout
+
+function isRetryable(e: unknown) {
+	const errno =
+		(e as { parent?: { errno?: number } })?.parent?.errno ??
+		(e as { original?: { errno?: number } })?.original?.errno;
+	return errno !== undefined && RETRYABLE.has(errno);
+}
+
+/**
+ * A transaction on the primary that is run again (up to four times, after a short random wait)
+ * when MariaDB picks it as a deadlock victim, as InnoDB expects of its clients. `fn` must be
+ * safe to repeat: everything it wrote was rolled back.
+ */
+export async function transaction<T>(fn: (t: Transaction) => Promise<T>): Promise<T> {
+	for (let attempt = 1; ; attempt++) {
+		try {
+			return await db().transaction(fn);
+		} catch (e) {
+			if (attempt >= 4 || !isRetryable(e)) throw e;
+			await new Promise((r) => setTimeout(r, 10 + Math.random() * 40 * attempt));
+		}
+	}
+}

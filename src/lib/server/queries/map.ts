@@ -1,7 +1,6 @@
-import { QueryTypes } from 'sequelize';
 import type { LevelKey } from '$lib/engine';
 import type { BBox } from '$lib/map/params';
-import { db } from '../db';
+import { readQuery } from '../db';
 
 /** Whose blocks a map shows: the organisation's, or a grower's own, or a scout's assigned. */
 export interface MapScope {
@@ -78,7 +77,7 @@ export async function mapBlocks(
 		args.push(q.pest);
 	}
 	// The stored boundary was checked when saved, so it is spliced in as it is.
-	const [row] = await db().query<{ fc: string | null }>(
+	const [row] = await readQuery<{ fc: string | null }>(
 		`SET STATEMENT group_concat_max_len = 1073741824 FOR
 		 SELECT GROUP_CONCAT(CONCAT(
 		          '{"type":"Feature","id":', b.id, ',"geometry":',
@@ -92,7 +91,7 @@ export async function mapBlocks(
 		   JOIN crops c ON c.id = b.crop_id
 		   JOIN pests p ON p.id = b.pest_id
 		  WHERE ${where.join(' AND ')}`,
-		{ replacements: args, type: QueryTypes.SELECT }
+		args
 	);
 	return `{"type":"FeatureCollection","features":[${row?.fc ?? ''}]}`;
 }
@@ -121,7 +120,7 @@ export function mapTraps(scope: MapScope, q: { bbox?: BBox; from: string; to: st
 		where.push('t.lat BETWEEN ? AND ? AND t.lon BETWEEN ? AND ?');
 		args.push(q.bbox.minLat, q.bbox.maxLat, q.bbox.minLon, q.bbox.maxLon);
 	}
-	return db().query<MapTrapRow>(
+	return readQuery<MapTrapRow>(
 		`SELECT t.id, t.name, t.kind, f.name AS farm, t.lat, t.lon, r.read_on AS readOn,
 		        r.days_out AS daysOut, r.alate_total AS alateTotal, r.alate_counts AS alateCounts
 		   FROM traps t
@@ -132,14 +131,14 @@ export function mapTraps(scope: MapScope, q: { bbox?: BBox; from: string; to: st
 		         ORDER BY r2.read_on DESC, r2.id DESC LIMIT 1)
 		  WHERE ${where.join(' AND ')}
 		  ORDER BY t.id`,
-		{ replacements: args, type: QueryTypes.SELECT }
+		args
 	);
 }
 
 /** Crops and pests present on the blocks in scope, for the map's filters (one query). */
 export async function mapFilters(scope: MapScope) {
 	const s = scopeSql(scope, { farm: 'f', block: 'b' });
-	const rows = await db().query<{ kind: 'crop' | 'pest'; code: string; name: string }>(
+	const rows = await readQuery<{ kind: 'crop' | 'pest'; code: string; name: string }>(
 		`SELECT DISTINCT 'crop' AS kind, c.code, c.name FROM blocks b
 		   JOIN farms f ON f.id = b.farm_id JOIN crops c ON c.id = b.crop_id
 		  WHERE ${['b.organisation_id = ?', ...s.where].join(' AND ')}
@@ -148,10 +147,7 @@ export async function mapFilters(scope: MapScope) {
 		   JOIN farms f ON f.id = b.farm_id JOIN pests p ON p.id = b.pest_id
 		  WHERE ${['b.organisation_id = ?', ...s.where].join(' AND ')}
 		 ORDER BY 1, 3`,
-		{
-			replacements: [scope.organisationId, ...s.args, scope.organisationId, ...s.args],
-			type: QueryTypes.SELECT
-		}
+		[scope.organisationId, ...s.args, scope.organisationId, ...s.args]
 	);
 	return {
 		crops: rows.filter((r) => r.kind === 'crop').map(({ code, name }) => ({ code, name })),
@@ -185,7 +181,7 @@ export async function regionRows(
 ) {
 	const w = weeks.map(() => 'SELECT ? AS wk, ? AS nx').join(' UNION ALL ');
 	const wArgs = weeks.flatMap((x) => [x.start, x.next]);
-	const rows = await db().query<RegionRow>(
+	const rows = await readQuery<RegionRow>(
 		`WITH w AS (${w}),
 		 rf AS (SELECT f.id, f.lat, f.lon FROM farms f
 		          JOIN organisations o ON o.id = f.organisation_id
@@ -206,7 +202,7 @@ export async function regionRows(
 		   FROM w JOIN trap_readings r ON r.read_on >= w.wk AND r.read_on < w.nx
 		   JOIN traps t ON t.id = r.trap_id JOIN rf ON rf.id = t.farm_id
 		  GROUP BY w.wk, rf.id, rf.lat, rf.lon`,
-		{ replacements: [...wArgs, viewerOrganisationId], type: QueryTypes.SELECT }
+		[...wArgs, viewerOrganisationId]
 	);
 	return rows.map((r) => ({
 		...r,
@@ -221,7 +217,7 @@ export async function regionRows(
 /** The bounding box of the blocks in scope, to open the map on them (one query). */
 export async function mapExtent(scope: MapScope): Promise<BBox | null> {
 	const s = scopeSql(scope, { farm: 'f', block: 'b' });
-	const [row] = await db().query<{
+	const [row] = await readQuery<{
 		minLat: number | null;
 		minLon: number;
 		maxLat: number;
@@ -230,7 +226,7 @@ export async function mapExtent(scope: MapScope): Promise<BBox | null> {
 		`SELECT MIN(b.min_lat) AS minLat, MIN(b.min_lon) AS minLon, MAX(b.max_lat) AS maxLat, MAX(b.max_lon) AS maxLon
 		   FROM blocks b JOIN farms f ON f.id = b.farm_id
 		  WHERE ${['b.organisation_id = ?', ...s.where].join(' AND ')}`,
-		{ replacements: [scope.organisationId, ...s.args], type: QueryTypes.SELECT }
+		[scope.organisationId, ...s.args]
 	);
 	return row?.minLat == null ? null : (row as BBox);
 }

@@ -3,7 +3,7 @@ import { EngineInputError, type Assessment as EngineAssessment } from '$lib/engi
 import { LEVEL_DISPLAY } from '$lib/levels';
 import type { VisitCreate } from '$lib/schemas/scouting';
 import { reassessBlock } from '../assessments';
-import { db, Photo, SampleUnit, User, Visit, VisitCount } from '../db';
+import { Photo, SampleUnit, transaction, User, Visit, VisitCount } from '../db';
 import { blockFor, type Refusal } from './access';
 import { outsideBoundary } from './geo';
 
@@ -186,7 +186,7 @@ export async function createVisit(
 	}
 	const pos = input.position ?? null;
 	try {
-		const out = await db().transaction(async (transaction) => {
+		const out = await transaction(async (transaction) => {
 			const visit = await Visit.create(
 				{
 					blockId: block.id,
