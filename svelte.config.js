@@ -13,6 +13,9 @@ const config = {
 		// The offline worker is registered by the scout's pages only (scope /rounds), so it never
 		// runs for other screens; see src/routes/(app)/rounds/+layout.svelte.
 		serviceWorker: { register: false },
+		// The cross-site form check runs in hooks (src/lib/server/csrf.ts) so the SMS provider's
+		// signed webhooks, which come with no Origin header, can be exempted.
+		csrf: { trustedOrigins: ['*'] },
 		// Scripts only from the app itself (Kit adds nonces or hashes for its own inline code).
 		// Styles allow inline because Leaflet positions tiles and markers with style attributes;
 		// images allow https: so a deployment can configure a map tile server.

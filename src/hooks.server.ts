@@ -13,7 +13,9 @@ import {
 } from '$lib/server/resilience';
 import { ROLES, type Role } from '$lib/roles';
 import { env } from '$env/dynamic/private';
+import { env as publicEnv } from '$env/dynamic/public';
 import { startAlertsInApp } from '$lib/server/alerts/inApp';
+import { originCheck } from '$lib/server/csrf';
 import { db } from '$lib/server/db';
 
 if (!building) assertSafeForProduction();
@@ -51,6 +53,7 @@ const guard: Handle = async ({ event, resolve }) => {
 };
 
 export const handle = sequence(
+	originCheck,
 	securityHeaders,
 	databaseOutage,
 	authHandle,
@@ -75,5 +78,6 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 // The alerts outbox worker runs inside the app unless ALERTS_WORKER=off (tests that run their
 // own workers); more can run beside it (src/lib/server/alerts/cli.ts).
 export const init: ServerInit = () => {
-	if (!building) startAlertsInApp(env, db);
+	// PUBLIC_BASE_URL is a public variable, so SvelteKit keeps it out of the private env.
+	if (!building) startAlertsInApp({ ...env, ...publicEnv }, db);
 };

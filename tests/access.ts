@@ -103,7 +103,11 @@ export const PUBLIC: Record<string, string> = {
 	'/signin/check-email': 'sign-in link sent',
 	'/signout': 'sign-out action',
 	'GET /api/health': 'load balancer health check',
-	'GET /api/openapi.json': 'the API description; it holds no data'
+	'GET /api/openapi.json': 'the API description; it holds no data',
+	'POST /api/webhooks/sms/status':
+		'SMS provider status callbacks; refused (403) unless X-Twilio-Signature matches',
+	'POST /api/webhooks/sms/inbound':
+		'SMS provider inbound texts (STOP/START/HELP, acknowledgements); refused (403) unless signed'
 };
 
 const ADVISERS: Role[] = ['agronomist', 'admin'];
