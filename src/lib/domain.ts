@@ -14,7 +14,7 @@ export const DECISIONS = ['treat', 'rescout', 'no-action', 'biological', 'other'
 export type Decision = (typeof DECISIONS)[number];
 export const DECISION_LABELS: Record<Decision, string> = {
 	treat: 'Treat',
-	rescout: 'Re-scout by a date',
+	rescout: 'Re-scout',
 	'no-action': 'No action',
 	biological: 'Biological control',
 	other: 'Other measure'

@@ -3,7 +3,7 @@ import type { SampleSummary } from './sample';
 
 const GUIDE = 'UK government cereal aphid guide; Giles et al. 2003';
 
-/** Mummy shares that change the advice, from cereal work (see DOMAIN table). */
+/** Mummy shares that change the advice, from cereal work (UK government guide; Giles et al. 2003). */
 export const DEFAULT_ENEMY_RULES: EnemyRules = {
 	selectiveBelow: {
 		value: 0.02,

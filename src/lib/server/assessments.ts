@@ -1,5 +1,11 @@
 import { Op, type Transaction } from 'sequelize';
-import { assessBlock, type AssessBlockInput, type Assessment as EngineAssessment } from '../engine';
+import { error } from '@sveltejs/kit';
+import {
+	assessBlock,
+	EngineInputError,
+	type AssessBlockInput,
+	type Assessment as EngineAssessment
+} from '../engine';
 import type { ThresholdRule as EngineRule } from '../engine';
 import {
 	Assessment,
@@ -13,6 +19,24 @@ import {
 	WeatherDay
 } from './db/models';
 import { levelChanged } from './events';
+
+/**
+ * reassessBlock for writes made by a person: input the engine refuses (it names the field)
+ * becomes a 400 that rolls the caller's transaction back, instead of a server error.
+ */
+export async function reassessOrRefuse(blockId: number, opts: ReassessOptions = {}) {
+	try {
+		return await reassessBlock(blockId, opts);
+	} catch (e) {
+		if (e instanceof EngineInputError) {
+			error(
+				400,
+				`Block ${blockId} could not be assessed with this change: ${e.field}: ${e.message}`
+			);
+		}
+		throw e;
+	}
+}
 
 export interface ReassessOptions {
 	today?: Date;

@@ -12,7 +12,7 @@ import {
 	SampleUnit,
 	ThresholdRule
 } from '../db/models';
-import { reassessBlock } from '../assessments';
+import { reassessOrRefuse } from '../assessments';
 import { audit } from './audit';
 
 type ProductInput = z.infer<typeof productSchema>;
@@ -183,7 +183,7 @@ async function reassessAffected(
 		attributes: ['id'],
 		transaction: t
 	});
-	for (const b of blocks) await reassessBlock(b.id, { transaction: t });
+	for (const b of blocks) await reassessOrRefuse(b.id, { transaction: t });
 	return blocks.length;
 }
 

@@ -1,7 +1,7 @@
 import Papa from 'papaparse';
 import { Op } from 'sequelize';
 import { z } from 'zod';
-import { reassessBlock } from '../assessments';
+import { reassessOrRefuse } from '../assessments';
 import { Block, db, SampleUnit, Visit, VisitCount } from '../db';
 
 /** Columns of the counts spreadsheet (the export writes the same ones). */
@@ -240,6 +240,17 @@ export async function planImport(
 			});
 		if (g.visitedOn > today)
 			issues.push({ row: g.firstRow, column: 'visited_on', message: 'the date is in the future' });
+		// A visit is either counted or presence-absence: a unit without a count in a counted
+		// visit would otherwise be read as zero aphids.
+		const counted = g.rows.filter((x) => x.r.aphids !== undefined);
+		if (counted.length && counted.length < g.rows.length) {
+			const gap = g.rows.find((x) => x.r.aphids === undefined)!;
+			issues.push({
+				row: gap.line,
+				column: 'aphids',
+				message: `this visit counts aphids on line ${counted[0].line}: give a count on every unit`
+			});
+		}
 	}
 	if (!parsed.data.length) issues.push({ row: 2, column: '', message: 'the file has no rows' });
 	issues.sort((a, b) => a.row - b.row);
@@ -315,7 +326,7 @@ export async function commitImport(text: string, user: SessionUser) {
 			ids.push(v.id);
 		}
 		for (const blockId of new Set(plan.groups.map((g) => g.blockId)))
-			await reassessBlock(blockId, { transaction });
+			await reassessOrRefuse(blockId, { transaction });
 		return ids;
 	});
 	return { ok: true as const, plan, visitIds };
@@ -357,5 +368,6 @@ export async function visitsCsv(blockId: number) {
 				v.notes ?? ''
 			]);
 	}
-	return Papa.unparse({ fields: [...CSV_COLUMNS], data: rows });
+	// Notes are free text: a leading = + - @ must not run as a spreadsheet formula.
+	return Papa.unparse({ fields: [...CSV_COLUMNS], data: rows }, { escapeFormulae: true });
 }
