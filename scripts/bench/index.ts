@@ -8,7 +8,8 @@ export const BENCHES = [
 	'scripts/bench/engine.ts',
 	'scripts/bench/ingest.ts',
 	'scripts/bench/bundle.ts',
-	'scripts/bench/map.ts'
+	'scripts/bench/map.ts',
+	'scripts/bench/alerts.ts'
 ];
 
 /**
