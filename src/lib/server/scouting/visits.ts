@@ -3,7 +3,7 @@ import { EngineInputError, type Assessment as EngineAssessment } from '$lib/engi
 import { LEVEL_DISPLAY } from '$lib/levels';
 import type { VisitCreate } from '$lib/schemas/scouting';
 import { reassessBlock } from '../assessments';
-import { Photo, SampleUnit, transaction, User, Visit, VisitCount } from '../db';
+import { Block, Photo, SampleUnit, transaction, User, Visit, VisitCount } from '../db';
 import { blockFor, type Refusal } from './access';
 import { outsideBoundary } from './geo';
 
@@ -187,6 +187,13 @@ export async function createVisit(
 	const pos = input.position ?? null;
 	try {
 		const out = await transaction(async (transaction) => {
+			// Writers to one block take its row lock first, so concurrent visits queue instead of
+			// deadlocking on the foreign-key check and the block's level update.
+			await Block.findByPk(block.id, {
+				transaction,
+				lock: transaction.LOCK.UPDATE,
+				attributes: ['id']
+			});
 			const visit = await Visit.create(
 				{
 					blockId: block.id,
