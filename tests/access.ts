@@ -37,6 +37,7 @@ export const PAGES: Record<string, AccessRule> = {
 		roles: ['agronomist', 'admin']
 	},
 	'/(app)/admin/people': { roles: ['admin'] },
+	'/(app)/settings': { roles: ALL_ROLES },
 	'/(app)/blocks/[id]': { path: '/blocks/{block}', roles: ['agronomist', 'admin', 'grower'] },
 	'/(app)/blocks/[id]/recommend': {
 		path: '/blocks/{block}/recommend',

@@ -21,7 +21,8 @@ export const NAV: NavItem[] = [
 	{ href: '/library/products', label: 'Library', roles: ['agronomist', 'admin'] },
 	{ href: '/audit', label: 'Audit', roles: ['agronomist', 'admin'] },
 	{ href: '/region', label: 'Region', roles: ['regional'] },
-	{ href: '/admin/people', label: 'People', roles: ['admin'] }
+	{ href: '/admin/people', label: 'People', roles: ['admin'] },
+	{ href: '/settings', label: 'My alerts', roles: ['admin', 'agronomist', 'scout', 'grower'] }
 ];
 
 export function navFor(role: Role) {

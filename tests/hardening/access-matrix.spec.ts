@@ -72,7 +72,9 @@ async function probe(
 }
 
 function foreignPath(path: string, role: Role) {
-	if (!/\{(\w+)\}/.test(path)) return null;
+	// Only records with a known counterpart elsewhere (photos have none in the demo).
+	const keys = [...path.matchAll(/\{(\w+)\}/g)].map((m) => m[1]);
+	if (!keys.length || !keys.every((k) => FOREIGN[k])) return null;
 	return path.replace(/\{(\w+)\}/g, (_, k: string) =>
 		role === 'grower' && k === 'block' ? '{otherGrowerBlock}' : `{${FOREIGN[k] ?? k}}`
 	);
