@@ -9,9 +9,28 @@ const TARGET_KB = 80;
 const cookie = await signIn(APP, 'tomas@brackenridge.test');
 const html = await (await fetch(`${APP}/rounds`, { headers: { cookie } })).text();
 const urls = new Set<string>();
-for (const m of html.matchAll(/<link[^>]+rel="modulepreload"[^>]+href="([^"]+)"/g)) urls.add(m[1]);
+for (const tag of html.match(/<link\b[^>]*>/g) ?? []) {
+	const href = tag.match(/\bhref="([^"]+)"/)?.[1];
+	if (href && /\brel="modulepreload"/.test(tag)) urls.add(href);
+}
 for (const m of html.matchAll(/<script[^>]+src="([^"]+)"/g)) urls.add(m[1]);
 for (const m of html.matchAll(/import\("([^"]+\.js)"\)/g)) urls.add(m[1]);
+// What those entry modules import statically is loaded at once too: follow it.
+const seen = new Set<string>();
+const queue = [...urls].map((u) => new URL(u, `${APP}/rounds`).href);
+while (queue.length) {
+	const u = queue.pop()!;
+	if (seen.has(u)) continue;
+	seen.add(u);
+	const src = await (await fetch(u)).text();
+	for (const m of src.matchAll(
+		/(?:^|[;\n}])\s*import\s*(?:[^'"()]*?from\s*)?["']([^"']+\.js)["']/g
+	)) {
+		queue.push(new URL(m[1], u).href);
+	}
+}
+urls.clear();
+for (const u of seen) urls.add(u);
 let raw = 0;
 let gz = 0;
 for (const u of urls) {
