@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { AuditLog, Recommendation } from '../../src/lib/server/db/models';
 import { BLOOM, checkContext, treatmentWarnings } from '../../src/lib/server/advice/checks';
 import {
@@ -11,12 +11,8 @@ import { rank } from '../../src/lib/server/advice/triage';
 import { closeTestDb } from '../helpers/db';
 import { day, deskScenario } from '../helpers/advice';
 
-// Models bind to one Sequelize instance, so the app's db() hands out the test helper's
-// connection to the same test database (nothing is faked: every query runs on MariaDB).
-vi.mock('../../src/lib/server/db/index.ts', async (original) => {
-	const helpers = await import('../helpers/db');
-	return { ...(await original<object>()), db: () => helpers.testDb() };
-});
+// The test helper's connection is the app's own db(), so the server code under test and the
+// checks share one Sequelize instance on the test database.
 
 type Scenario = Awaited<ReturnType<typeof deskScenario>>;
 let s: Scenario;
