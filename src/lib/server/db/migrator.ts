@@ -8,6 +8,7 @@ import * as m05 from './migrations/2026.12.01T00.05.advice';
 import * as m06 from './migrations/2026.12.01T00.06.alerts';
 import * as m07 from './migrations/2026.12.01T00.07.audit';
 import * as m0201 from './migrations/2026.12.02T01.00.scouting-extras';
+import * as m0301 from './migrations/2026.12.03T01.00.alert-log';
 
 export type Migration = MigrationFn<QueryInterface>;
 
@@ -20,7 +21,8 @@ const MIGRATIONS: Record<string, { up: Migration; down: Migration }> = {
 	'2026.12.01T00.05.advice': m05,
 	'2026.12.01T00.06.alerts': m06,
 	'2026.12.01T00.07.audit': m07,
-	'2026.12.02T01.00.scouting-extras': m0201
+	'2026.12.02T01.00.scouting-extras': m0201,
+	'2026.12.03T01.00.alert-log': m0301
 };
 
 /** An umzug instance over the project's migrations, recording progress in `schema_migrations`. */

@@ -17,6 +17,8 @@ export class Organisation extends Model<
 	declare kind: 'advisory' | 'coop' | 'extension';
 	declare region: string;
 	declare timezone: CreationOptional<string>;
+	/** ISO 3166-1 alpha-2; the default for phone numbers typed without a country code. */
+	declare country: CreationOptional<string>;
 	declare createdAt: CreationOptional<Date>;
 	declare updatedAt: CreationOptional<Date>;
 
@@ -29,6 +31,7 @@ export class Organisation extends Model<
 				kind: { type: DataTypes.ENUM('advisory', 'coop', 'extension'), allowNull: false },
 				region: { type: DataTypes.STRING(160), allowNull: false },
 				timezone: { type: DataTypes.STRING(64), allowNull: false, defaultValue: 'UTC' },
+				country: { type: DataTypes.CHAR(2), allowNull: false, defaultValue: 'US' },
 				createdAt: DataTypes.DATE,
 				updatedAt: DataTypes.DATE
 			},
