@@ -34,6 +34,9 @@ export const CAUTIONS = [
 export const CAUTION_SMS =
 	'Follow the product label and local rules; observe REI/PHI; protect bees. Details in the link.';
 
+/** The line every other recommendation SMS ends with (re-scout, no action...): it defers to the label. */
+export const CAUTION_SMS_SHORT = 'Follow the label and local rules.';
+
 export function cautionsText() {
 	return CAUTIONS.map((c) => `${c.title}: ${c.text}`).join('\n');
 }

@@ -2,6 +2,7 @@ import { z } from 'zod';
 import { dayNumber, type LevelKey } from '$lib/engine';
 import { LEVEL_KEYS } from '$lib/domain';
 import { readQuery } from '../db';
+import { FOLLOW_UP_DUE_SQL, scoutingDue } from '../scouting/due';
 
 export interface TriageRow {
 	id: number;
@@ -43,10 +44,7 @@ SELECT b.id, b.name, b.farm_id AS farmId, f.name AS farmName, g.name AS growerNa
           JOIN users u ON u.id = s.scout_id WHERE s.block_id = b.id AND s.active = 1) AS scoutIds,
        (SELECT COUNT(*) FROM recommendations r
          WHERE r.block_id = b.id AND r.status IN ('issued', 'acknowledged')) AS openRecs,
-       (SELECT MIN(r.follow_up_due) FROM recommendations r
-         WHERE r.block_id = b.id AND r.status IN ('issued', 'acknowledged', 'applied')
-           AND r.follow_up_due IS NOT NULL
-           AND (b.last_visit_on IS NULL OR r.follow_up_due > b.last_visit_on)) AS followUpDue
+       ${FOLLOW_UP_DUE_SQL} AS followUpDue
   FROM blocks b
   JOIN farms f ON f.id = b.farm_id
   JOIN users g ON g.id = f.grower_id
@@ -79,11 +77,7 @@ export function byUrgency(a: TriageRow, b: TriageRow) {
 export function rank(raw: Omit<TriageRow, 'ageDays' | 'overdueDays' | 'urgency'>[], today: string) {
 	const t = dayNumber(today, 'today');
 	const rows: TriageRow[] = raw.map((r) => {
-		const age = r.lastVisitOn ? t - dayNumber(String(r.lastVisitOn), 'lastVisitOn') : null;
-		const byInterval = age === null ? r.rescoutDays : Math.max(0, age - r.rescoutDays);
-		const byFollowUp = r.followUpDue
-			? Math.max(0, t - dayNumber(String(r.followUpDue), 'followUpDue'))
-			: 0;
+		const { age, overdue } = scoutingDue(r, t);
 		const d =
 			r.daysToAction === null || r.daysToAction === undefined ? null : Number(r.daysToAction);
 		return {
@@ -91,7 +85,7 @@ export function rank(raw: Omit<TriageRow, 'ageDays' | 'overdueDays' | 'urgency'>
 			daysToAction: d !== null && Number.isFinite(d) ? Math.round(d * 10) / 10 : null,
 			openRecs: Number(r.openRecs),
 			ageDays: age,
-			overdueDays: Math.max(byInterval, byFollowUp),
+			overdueDays: overdue,
 			urgency: 0
 		};
 	});

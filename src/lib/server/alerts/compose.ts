@@ -1,4 +1,4 @@
-import { CAUTION_SMS } from '../../cautions';
+import { CAUTION_SMS, CAUTION_SMS_SHORT } from '../../cautions';
 import { DECISION_LABELS, type Decision } from '../../domain';
 import type { Assessment, LevelKey } from '../../engine';
 import { assessmentFigures, type Figure } from './figures';
@@ -121,11 +121,12 @@ export function recommendationMessage(i: RecommendationMessageInput): Composed {
 				? `Re-scout by ${i.rescoutBy}`
 				: decision;
 	const isTreat = i.decision === 'treat';
+	// Every recommendation SMS ends with a caution line: the longer one when a product is named.
 	const sms = [
 		`Cornicle: recommendation for ${i.block} (${i.farm}): ${what}.`,
-		isTreat ? CAUTION_SMS : '',
 		i.smsAck ? 'Reply OK to acknowledge.' : '',
-		i.link
+		i.link,
+		isTreat ? CAUTION_SMS : CAUTION_SMS_SHORT
 	]
 		.filter(Boolean)
 		.join(' ');
@@ -144,7 +145,8 @@ export function recommendationMessage(i: RecommendationMessageInput): Composed {
 		figures: i.assessment ? assessmentFigures(i.assessment) : [],
 		sections: [{ title: 'The recommendation', lines }],
 		link: { href: i.link, label: 'Open the recommendation in Cornicle' },
-		cautions: isTreat,
+		// Every recommendation, treat or not, carries the cautions and defers to the label.
+		cautions: true,
 		settingsUrl: i.settingsUrl
 	});
 }

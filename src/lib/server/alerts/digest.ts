@@ -1,5 +1,8 @@
 import { QueryTypes, type Sequelize } from 'sequelize';
+import { DECISION_LABELS, type Decision } from '../../domain';
 import type { LevelKey } from '../../engine';
+import { dayNumber } from '../../engine/dates';
+import { FOLLOW_UP_DUE_SQL, scoutingDue } from '../scouting/due';
 import { LEVEL_LABEL } from './compose';
 import { mailHtml, mailText, type MailParts } from './html';
 import { settingsLink } from './links';
@@ -12,8 +15,34 @@ interface BlockRow {
 	farm: string;
 	level: LevelKey | null;
 	reason: string | null;
-	lastVisitOn: string | null;
-	overdue: number;
+	lastVisitOn: string | Date | null;
+	rescoutDays: number;
+	followUpDue: string | Date | null;
+}
+
+interface OpenRow {
+	block: string;
+	farm: string;
+	decision: Decision;
+	product: string | null;
+	iracGroup: string | null;
+	targetDate: string | null;
+	rescoutBy: string | null;
+	issuedAt: Date;
+}
+
+const day = (v: string | Date | null) =>
+	v === null ? null : v instanceof Date ? v.toISOString().slice(0, 10) : String(v).slice(0, 10);
+
+/** One open recommendation as a digest line: what, with which product, since when. */
+function openLine(r: OpenRow) {
+	const what =
+		r.decision === 'treat' && r.product
+			? `Treat with ${r.product}${r.iracGroup ? ` (IRAC group ${r.iracGroup})` : ''}${r.targetDate ? ` by ${day(r.targetDate)}` : ''}`
+			: r.decision === 'rescout' && r.rescoutBy
+				? `Re-scout by ${day(r.rescoutBy)}`
+				: DECISION_LABELS[r.decision];
+	return `${r.block} (${r.farm}): ${what}; issued ${new Date(r.issuedAt).toISOString().slice(0, 10)}`;
 }
 
 const q = <T extends object>(sq: Sequelize, sql: string, replacements: Record<string, unknown>) =>
@@ -30,12 +59,12 @@ export async function digestParts(
 		q<BlockRow>(
 			sq,
 			`SELECT b.id, b.name, f.name AS farm, b.current_level AS level, b.current_reason AS reason,
-			        b.last_visit_on AS lastVisitOn,
-			        (b.last_visit_on IS NULL OR DATE_ADD(b.last_visit_on, INTERVAL b.rescout_days DAY) < :day) AS overdue
+			        b.last_visit_on AS lastVisitOn, b.rescout_days AS rescoutDays,
+			        ${FOLLOW_UP_DUE_SQL} AS followUpDue
 			   FROM blocks b JOIN farms f ON f.id = b.farm_id
 			  WHERE b.organisation_id = :org
 			  ORDER BY FIELD(b.current_level, 'severe', 'action', 'stirring', 'calm') , f.name, b.name`,
-			{ org: organisationId, day: localDate }
+			{ org: organisationId }
 		),
 		q<{ n: number }>(
 			sq,
@@ -43,11 +72,14 @@ export async function digestParts(
 			    AND created_at > NOW(3) - INTERVAL 1 DAY`,
 			{ org: organisationId }
 		),
-		q<{ block: string; farm: string; issuedAt: Date }>(
+		q<OpenRow>(
 			sq,
-			`SELECT b.name AS block, f.name AS farm, r.issued_at AS issuedAt FROM recommendations r
+			`SELECT b.name AS block, f.name AS farm, r.decision, p.name AS product, p.irac_group AS iracGroup,
+			        r.target_date AS targetDate, r.rescout_by AS rescoutBy, r.issued_at AS issuedAt
+			   FROM recommendations r
 			   JOIN blocks b ON b.id = r.block_id JOIN farms f ON f.id = b.farm_id
-			  WHERE r.organisation_id = :org AND r.status = 'issued' ORDER BY r.issued_at`,
+			   LEFT JOIN products p ON p.id = r.product_id
+			  WHERE r.organisation_id = :org AND r.status = 'issued' ORDER BY r.issued_at, r.id`,
 			{ org: organisationId }
 		),
 		q<{ n: number }>(
@@ -58,7 +90,15 @@ export async function digestParts(
 		)
 	]);
 	const high = blocks.filter((b) => b.level === 'severe' || b.level === 'action');
-	const overdue = blocks.filter((b) => Number(b.overdue));
+	const today = dayNumber(localDate, 'localDate');
+	const overdue = blocks.flatMap((b) => {
+		const lastVisitOn = day(b.lastVisitOn);
+		const due = scoutingDue(
+			{ lastVisitOn, rescoutDays: b.rescoutDays, followUpDue: day(b.followUpDue) },
+			today
+		);
+		return due.overdue ? [{ ...b, lastVisitOn, days: due.overdue }] : [];
+	});
 	const counts = (['severe', 'action', 'stirring', 'calm'] as const)
 		.map((l) => `${blocks.filter((b) => b.level === l).length} ${LEVEL_LABEL[l]}`)
 		.join(', ');
@@ -81,21 +121,21 @@ export async function digestParts(
 			{
 				title: 'Scouting overdue',
 				lines: overdue.length
-					? overdue.map((b) => `${b.name} (${b.farm}): last visit ${b.lastVisitOn ?? 'never'}`)
+					? overdue.map((b) =>
+							b.lastVisitOn
+								? `${b.name} (${b.farm}): last visit ${b.lastVisitOn}, ${b.days} day(s) overdue`
+								: `${b.name} (${b.farm}): no visit yet`
+						)
 					: ['None.']
 			},
 			{
 				title: 'Recommendations not yet acknowledged',
-				lines: open.length
-					? open.map(
-							(r) =>
-								`${r.block} (${r.farm}), issued ${new Date(r.issuedAt).toISOString().slice(0, 10)}`
-						)
-					: ['None.']
+				lines: open.length ? open.map(openLine) : ['None.']
 			}
 		],
 		link: { href: new URL('/desk', s.PUBLIC_BASE_URL).href, label: 'Open the desk' },
-		cautions: false,
+		// The digest lists recommendations: it carries the cautions whenever it lists one.
+		cautions: open.length > 0,
 		settingsUrl: settingsLink(s)
 	};
 }
@@ -139,6 +179,8 @@ export async function queueDigests(
 				   subject, body_text, body_html, status, attempts, not_before, created_at, updated_at)
 				 VALUES (:org, :user, 'email', 'digest', :key, :to, :subject, :text, :html, 'pending', 0, NOW(3), NOW(3), NOW(3))`,
 				{
+					// INSERT IGNORE is not recognised as an insert without the type, and the count is lost.
+					type: QueryTypes.INSERT,
 					replacements: {
 						org: org.id,
 						user: p.id,
