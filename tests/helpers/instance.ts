@@ -67,10 +67,16 @@ export async function startApp(
 			PHOTO_DIR: dataDir('photos'),
 			...env
 		},
-		stdio: ['ignore', 'ignore', 'pipe']
+		stdio: ['ignore', 'pipe', 'pipe']
 	});
 	// The instance's own log, for when a test needs to know why it answered as it did.
-	proc.stderr?.pipe(createWriteStream(dataDir(`app-${port}.log`), { flags: 'a' }));
+	const log = createWriteStream(dataDir(`app-${port}.log`), { flags: 'a' });
+	log.write(`--- started ${new Date().toISOString()} pid ${proc.pid}\n`);
+	proc.stdout?.pipe(log, { end: false });
+	proc.stderr?.pipe(log, { end: false });
+	proc.once('close', (code, signal) => {
+		log.end(`--- exited ${new Date().toISOString()} code ${code} signal ${signal}\n`);
+	});
 	await waitForUrl(`${url}/api/health`);
 	return {
 		url,

@@ -1,19 +1,40 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize';
-import { isDatabaseUnavailable } from '../resilience';
 import { config } from '../config';
+import { Availability, isDatabaseUnavailable } from './availability';
 import { connect, connectRaw } from './connect';
 
 let primary: Sequelize | null = null;
+let primaryState: Availability | null = null;
 let replica: Sequelize | null | undefined;
 let replicaHealthy = true;
 let recheck: ReturnType<typeof setTimeout> | null = null;
 
 const RECHECK_MS = 2_000;
 
-/** The app's shared Sequelize instance on the primary, opened on first use. */
+/**
+ * The app's shared Sequelize instance on the primary, opened on first use. While the primary is
+ * known to be down (see `databaseFailed`), its pool acquires fail at once with a connection error.
+ */
 export function db(): Sequelize {
-	if (!primary) primary = connect({ url: config().DATABASE_URL });
+	if (!primary) {
+		const url = config().DATABASE_URL;
+		primary = connect({ url });
+		primaryState = new Availability(url).guard(primary);
+	}
 	return primary;
+}
+
+/**
+ * Tells the primary's watcher that a query failed; when the error means MariaDB is away, a
+ * background probe confirms it and then checks every half second until it answers again.
+ */
+export function databaseFailed(error: unknown) {
+	primaryState?.suspect(error);
+}
+
+/** True while the primary is known to be down (requests fail fast and answer 503). */
+export function databaseKnownDown() {
+	return primaryState?.down ?? false;
 }
 
 function replicaDb(): Sequelize | null {
@@ -59,7 +80,12 @@ export async function readQuery<T extends object>(
 			markReplicaDown();
 		}
 	}
-	return db().query<T>(sql, { replacements, type: QueryTypes.SELECT });
+	try {
+		return await db().query<T>(sql, { replacements, type: QueryTypes.SELECT });
+	} catch (e) {
+		databaseFailed(e);
+		throw e;
+	}
 }
 
 export * from './models';
@@ -83,7 +109,10 @@ export async function transaction<T>(fn: (t: Transaction) => Promise<T>): Promis
 		try {
 			return await db().transaction(fn);
 		} catch (e) {
-			if (attempt >= 4 || !isRetryable(e)) throw e;
+			if (attempt >= 4 || !isRetryable(e)) {
+				databaseFailed(e);
+				throw e;
+			}
 			await new Promise((r) => setTimeout(r, 10 + Math.random() * 40 * attempt));
 		}
 	}

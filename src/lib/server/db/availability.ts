@@ -1,0 +1,164 @@
+import mariadb from 'mariadb';
+import {
+	ConnectionError,
+	ConnectionRefusedError,
+	ConnectionTimedOutError,
+	TimeoutError,
+	type Sequelize
+} from 'sequelize';
+
+// Error codes that mean MariaDB could not be reached or went away, as opposed to a bad query.
+// The ER_* codes of 45000 and up are the mariadb driver's own (node_modules/mariadb/lib/misc/
+// errors.js); 1040, 1053 and 1927 are the server's (too many connections, shutdown in
+// progress, connection killed).
+const UNAVAILABLE_CODES = new Set([
+	'ECONNREFUSED',
+	'ECONNRESET',
+	'EPIPE',
+	'ETIMEDOUT',
+	'EHOSTUNREACH',
+	'ENETUNREACH',
+	'PROTOCOL_CONNECTION_LOST',
+	'ER_GET_CONNECTION_TIMEOUT',
+	'ER_CONNECTION_TIMEOUT',
+	'ER_SOCKET_UNEXPECTED_CLOSE',
+	'ER_SOCKET',
+	'ER_SOCKET_TIMEOUT',
+	'ER_CMD_CONNECTION_CLOSED',
+	'ER_CONNECTION_ALREADY_CLOSED',
+	'ER_CMD_NOT_EXECUTED_DESTROYED',
+	'ER_CON_COUNT_ERROR',
+	'ER_SERVER_SHUTDOWN',
+	'ER_CONNECTION_KILLED'
+]);
+const UNAVAILABLE_ERRNOS = new Set([1040, 1053, 1927]);
+
+/** True when an error means the database could not be reached (not a bad query). */
+export function isDatabaseUnavailable(error: unknown): boolean {
+	for (let e = error, depth = 0; e && depth < 4; depth++) {
+		if (
+			e instanceof ConnectionError ||
+			e instanceof ConnectionRefusedError ||
+			e instanceof ConnectionTimedOutError ||
+			e instanceof TimeoutError
+		) {
+			return true;
+		}
+		const { code, errno } = e as { code?: string; errno?: number };
+		if ((code && UNAVAILABLE_CODES.has(code)) || (errno && UNAVAILABLE_ERRNOS.has(errno))) {
+			return true;
+		}
+		e =
+			(e as { parent?: unknown; original?: unknown; cause?: unknown }).parent ??
+			(e as { original?: unknown }).original ??
+			(e as { cause?: unknown }).cause;
+	}
+	return false;
+}
+
+const PROBE_MS = 500;
+const PROBE_TIMEOUT_MS = 2_000;
+
+/**
+ * Whether a Sequelize instance's MariaDB is known to be down. Once a request fails because the
+ * database is away, a probe (one connection of its own, outside the pool) checks it; while the
+ * probe fails every pool acquire fails at once, so requests answer 503 in milliseconds instead of
+ * waiting for connection timeouts, and the probe runs again every half second until MariaDB
+ * answers, when the pool is used again. Nothing here restarts the app.
+ */
+export class Availability {
+	#down = false;
+	#downSince = 0;
+	#probing: Promise<boolean> | null = null;
+	#timer: ReturnType<typeof setTimeout> | null = null;
+	#url: URL;
+
+	constructor(url: string) {
+		this.#url = new URL(url);
+	}
+
+	get down() {
+		return this.#down;
+	}
+
+	/** Seconds since the database was found down (0 when it is up). */
+	get downForS() {
+		return this.#down ? (Date.now() - this.#downSince) / 1000 : 0;
+	}
+
+	/** Makes every pool acquire of `sequelize` fail fast while the database is known down. */
+	guard(sequelize: Sequelize) {
+		sequelize.addHook('beforePoolAcquire', () => {
+			if (this.#down) throw new DatabaseDownError(this.downForS);
+		});
+		return this;
+	}
+
+	/** Called when a query failed in a way that may mean the database is away: checks it. */
+	suspect(error?: unknown) {
+		if (error !== undefined && !isDatabaseUnavailable(error)) return;
+		if (this.#down || this.#probing) return;
+		void this.#check();
+	}
+
+	/** One probe: a fresh connection and a ping. Resolves true when MariaDB answers. */
+	async probe(): Promise<boolean> {
+		const u = this.#url;
+		let conn: mariadb.Connection | null = null;
+		try {
+			conn = await mariadb.createConnection({
+				host: u.hostname,
+				port: Number(u.port || 3306),
+				user: decodeURIComponent(u.username),
+				password: decodeURIComponent(u.password),
+				database: u.pathname.replace(/^\//, ''),
+				connectTimeout: PROBE_TIMEOUT_MS
+			});
+			await conn.ping();
+			return true;
+		} catch {
+			return false;
+		} finally {
+			await conn?.end().catch(() => conn?.destroy());
+		}
+	}
+
+	async #check() {
+		this.#probing = this.probe();
+		const up = await this.#probing;
+		this.#probing = null;
+		if (up) {
+			if (this.#down) console.error(`database: back after ${this.downForS.toFixed(1)} s`);
+			this.#down = false;
+			return;
+		}
+		if (!this.#down) {
+			this.#down = true;
+			this.#downSince = Date.now();
+			console.error('database: not answering; failing fast and probing every 0.5 s');
+		}
+		this.#timer = setTimeout(() => void this.#check(), PROBE_MS);
+		this.#timer.unref?.();
+	}
+
+	/** Stops probing (for tests and shutdown). */
+	stop() {
+		if (this.#timer) clearTimeout(this.#timer);
+		this.#timer = null;
+	}
+}
+
+/** Thrown instead of acquiring a connection while the database is known down. */
+export class DatabaseDownError extends ConnectionRefusedError {
+	constructor(downForS: number) {
+		super(
+			Object.assign(
+				new Error(
+					`MariaDB has not answered for ${downForS.toFixed(1)} s (probed in the background)`
+				),
+				{ code: 'ECONNREFUSED' }
+			)
+		);
+		this.name = 'DatabaseDownError';
+	}
+}
