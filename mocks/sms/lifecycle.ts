@@ -34,7 +34,7 @@ export async function deliver(
 	for (const step of steps) {
 		await sleep(store.behaviour.callbackDelayMs);
 		store.setStatus(m.sid, step.status, step.error);
-		if (!m.statusCallback) continue;
+		if (!m.statusCallback || Math.random() < store.behaviour.callbackDropRate) continue;
 		const params: Record<string, string> = {
 			AccountSid: m.accountSid,
 			ApiVersion: '2010-04-01',

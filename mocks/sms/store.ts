@@ -32,6 +32,8 @@ export interface FakeBehaviour {
 	latencyMs: number;
 	/** Between status callbacks (queued -> sent -> delivered). */
 	callbackDelayMs: number;
+	/** Share of status callbacks never posted (a webhook lost on the way); the status still moves. */
+	callbackDropRate: number;
 }
 
 export const DEFAULT_BEHAVIOUR: FakeBehaviour = {
@@ -40,7 +42,8 @@ export const DEFAULT_BEHAVIOUR: FakeBehaviour = {
 	hangRate: 0,
 	hangMs: 15_000,
 	latencyMs: 0,
-	callbackDelayMs: 100
+	callbackDelayMs: 100,
+	callbackDropRate: 0
 };
 
 /** Messages the fake holds, newest first by number; kept in memory for the process's life. */

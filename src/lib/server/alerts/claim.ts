@@ -92,7 +92,7 @@ export async function claimBatch(
 }
 
 export type Outcome =
-	| { kind: 'sent'; providerId: string }
+	| { kind: 'sent'; providerId: string; delivered?: boolean }
 	| { kind: 'retry'; error: string }
 	| { kind: 'failed'; error: string }
 	| { kind: 'suppressed'; error: string };
@@ -104,8 +104,10 @@ export function backoffMs(attempt: number, baseMs: number, maxMs: number, rnd = 
 }
 
 /**
- * Records one row's outcome, only while `me` still holds it. A status callback that already
- * moved a sent SMS on (delivered) is kept.
+ * Records one row's outcome, only while `me` still holds this very attempt: a status callback
+ * may already have handed the row back (undelivered) and this worker claimed it again, and the
+ * late outcome of the old attempt must not overwrite the new one. A status callback that
+ * already moved a sent SMS on (delivered) is kept.
  */
 export async function recordOutcome(
 	sequelize: Sequelize,
@@ -114,14 +116,16 @@ export async function recordOutcome(
 	o: Outcome,
 	retry: { maxAttempts: number; baseMs: number; maxMs: number }
 ) {
-	const where = 'WHERE id = :id AND claimed_by = :me';
-	const r = { id: row.id, me };
+	const where = 'WHERE id = :id AND claimed_by = :me AND attempts = :attempt';
+	const r = { id: row.id, me, attempt: row.attempts };
 	if (o.kind === 'sent') {
 		await sequelize.query(
 			`UPDATE notifications SET provider_id = :pid, sent_at = COALESCE(sent_at, NOW(3)), last_error = NULL,
 			        claimed_by = NULL, updated_at = NOW(3),
-			        status = CASE WHEN status = 'sending' THEN 'sent' ELSE status END ${where}`,
-			{ replacements: { ...r, pid: o.providerId.slice(0, 80) } }
+			        delivered_at = IF(:delivered AND status IN ('sending', 'sent'), NOW(3), delivered_at),
+			        status = CASE WHEN status IN ('sending', 'sent') AND :delivered THEN 'delivered'
+			                      WHEN status = 'sending' THEN 'sent' ELSE status END ${where}`,
+			{ replacements: { ...r, pid: o.providerId.slice(0, 80), delivered: !!o.delivered } }
 		);
 		return;
 	}

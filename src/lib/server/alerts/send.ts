@@ -41,7 +41,10 @@ export async function sendSms(
 					m.status !== 'failed' &&
 					m.status !== 'undelivered'
 			);
-			if (same) return { kind: 'sent', providerId: same.sid };
+			// Its callbacks may have come while the row waited for this retry and matched nothing,
+			// so the status the provider holds now is the one to keep.
+			if (same)
+				return { kind: 'sent', providerId: same.sid, delivered: same.status === 'delivered' };
 		}
 		const m = await client.messages.create({
 			to: row.toAddress,

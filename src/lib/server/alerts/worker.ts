@@ -4,6 +4,7 @@ import type { Sequelize } from 'sequelize';
 import { claimBatch, recordOutcome, releaseClaim, type ClaimedRow, type Outcome } from './claim';
 import { queueDigests } from './digest';
 import { mailTransport } from './mail';
+import { checkUnconfirmed } from './reconcile';
 import { optedOut } from './recipients';
 import { sendMail, sendSms } from './send';
 import { smsClient } from './sms';
@@ -33,6 +34,7 @@ export class AlertWorker {
 	private loop: Promise<void> | null = null;
 	private wake: (() => void) | null = null;
 	private lastDigest = 0;
+	private lastStatusCheck = Date.now();
 	sent = 0;
 
 	constructor(private o: WorkerOptions) {
@@ -63,6 +65,11 @@ export class AlertWorker {
 				if (this.o.digests !== false && Date.now() - this.lastDigest > 60_000) {
 					this.lastDigest = Date.now();
 					await queueDigests(this.sequelize, this.s);
+				}
+				// Lost status callbacks: ask the provider about texts that never reported back.
+				if (Date.now() - this.lastStatusCheck > Math.min(60_000, this.s.ALERTS_STATUS_CHECK_MS)) {
+					this.lastStatusCheck = Date.now();
+					await checkUnconfirmed(this.sequelize, this.sms, this.s);
 				}
 				const n = await this.drainOnce();
 				if (n > 0) continue;
