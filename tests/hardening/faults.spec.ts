@@ -1,6 +1,4 @@
-import { spawn, type ChildProcess } from 'node:child_process';
 import { randomUUID } from 'node:crypto';
-import { join } from 'node:path';
 import { setTimeout as sleep } from 'node:timers/promises';
 import mariadb from 'mariadb';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -10,9 +8,10 @@ import {
 	ownDatabase,
 	PORT_BASE,
 	startApp,
-	waitForUrl,
+	startSmsFake,
 	type AppInstance,
-	type MariaDB
+	type MariaDB,
+	type SmsFake
 } from '../helpers/instance';
 
 // Faults against servers of this test's own: kill -9 of the app during a steady stream of visit
@@ -267,21 +266,6 @@ describe('faults', () => {
 	// Runs after the outage above, against the same (restarted) database.
 	it('the SMS provider down for a while: alerts wait in the outbox and drain once it is back', async () => {
 		const smsPort = PORT_BASE + 9;
-		const root = join(import.meta.dirname, '../..');
-		const startFake = async () => {
-			const p = spawn(join(root, 'node_modules/.bin/tsx'), ['mocks/sms/server.ts'], {
-				cwd: root,
-				env: { ...process.env, SMS_FAKE_PORT: String(smsPort) },
-				stdio: 'ignore'
-			});
-			await waitForUrl(`http://127.0.0.1:${smsPort}/`);
-			return p;
-		};
-		const stopFake = (p: ChildProcess) =>
-			new Promise((r) => {
-				p.once('exit', r);
-				p.kill('SIGKILL');
-			});
 		const sender = await startApp(PORT_BASE + 10, dbUrl, {
 			ALERTS_WORKER: 'on',
 			TWILIO_BASE_URL: `http://127.0.0.1:${smsPort}`,
@@ -291,7 +275,13 @@ describe('faults', () => {
 			ALERTS_POLL_MS: '200',
 			ALERTS_SEND_TIMEOUT_MS: '2000'
 		});
+		let fake: SmsFake | null = null;
 		try {
+			const providerUp = await fetch(`http://127.0.0.1:${smsPort}/`).then(
+				() => true,
+				() => false
+			);
+			expect(providerUp, 'nothing answers on the provider port yet').toBe(false);
 			const [org] = await raw.query(`SELECT id FROM organisations WHERE slug = 'brackenridge'`);
 			const n = 30;
 			await raw.batch(
@@ -309,7 +299,7 @@ describe('faults', () => {
 				`SELECT SUM(status IN ('pending', 'sending')) AS pending, SUM(status = 'failed') AS failed, MAX(attempts) AS tries
 				   FROM notifications WHERE dedupe_key LIKE 'outage-%'`
 			);
-			const fake = await startFake();
+			fake = await startSmsFake(smsPort);
 			const t0 = Date.now();
 			let done = 0;
 			while (Date.now() - t0 < 30_000) {
@@ -329,12 +319,15 @@ describe('faults', () => {
 			console.log(
 				`Faults, SMS provider down 3 s: ${Number(waiting.pending)} of ${n} alerts waiting (${Number(waiting.failed ?? 0)} failed, up to ${Number(waiting.tries)} tries); drained ${done} in ${drained.toFixed(1)} s once back; ${ours.length} SMS received, ${twice} sent twice`
 			);
-			await stopFake(fake);
+			expect(Number(waiting.tries), 'the worker tried while the provider was down').toBeGreaterThan(
+				0
+			);
 			expect(Number(waiting.pending)).toBe(n);
 			expect(done).toBe(n);
 			expect(ours.length).toBe(n);
 			expect(twice).toBe(0);
 		} finally {
+			await fake?.stop();
 			await sender.kill();
 		}
 	});

@@ -82,9 +82,49 @@ export async function startApp(
 		url,
 		proc,
 		async kill(signal = 'SIGKILL') {
-			if (proc.exitCode !== null) return;
+			if (proc.exitCode !== null || proc.signalCode !== null) return;
 			const done = new Promise((r) => proc.once('exit', r));
 			proc.kill(signal);
+			await done;
+		}
+	};
+}
+
+export interface SmsFake {
+	url: string;
+	proc: ChildProcess;
+	stop(): Promise<void>;
+}
+
+/**
+ * Starts the SMS provider's fake on `port` as one node process (tsx as a loader, not tsx's own
+ * wrapper, whose child would outlive a SIGKILL of the wrapper and keep the port). Refuses to
+ * start when something already answers on the port, so a test never talks to a stale fake.
+ */
+export async function startSmsFake(
+	port: number,
+	env: Record<string, string> = {}
+): Promise<SmsFake> {
+	const url = `http://127.0.0.1:${port}`;
+	const taken = await fetch(`${url}/`, { signal: AbortSignal.timeout(1_000) }).then(
+		() => true,
+		() => false
+	);
+	if (taken) throw new Error(`something already answers on ${url}; stop it first`);
+	const proc = spawn(process.execPath, ['--import', 'tsx', 'mocks/sms/server.ts'], {
+		cwd: ROOT,
+		env: { ...process.env, SMS_FAKE_PORT: String(port), ...env },
+		stdio: ['ignore', 'ignore', 'pipe']
+	});
+	proc.stderr?.pipe(createWriteStream(dataDir(`sms-${port}.log`), { flags: 'a' }));
+	await waitForUrl(`${url}/`);
+	return {
+		url,
+		proc,
+		async stop() {
+			if (proc.exitCode !== null || proc.signalCode !== null) return;
+			const done = new Promise((r) => proc.once('exit', r));
+			proc.kill('SIGKILL');
 			await done;
 		}
 	};
