@@ -127,4 +127,56 @@ describe('offline rounds', () => {
 			await context.close();
 		}
 	);
+
+	it(
+		'signing out on a shared phone forgets the saved pages and the outbox, unsent records only if agreed',
+		{ timeout: 120_000 },
+		async () => {
+			const context = await browser.newContext({ baseURL: APP, viewport: PHONE });
+			const page = await context.newPage();
+			await signInAs(page, 'scout');
+			await page
+				.getByTestId('offline-ready')
+				.getByText('Saved on this phone')
+				.waitFor({ timeout: 30_000 });
+			// The visit cannot reach the server, so it waits in the outbox.
+			await page.route('**/api/visits', (r) => r.abort());
+			await quickVisit(page, ids['Pea Field'], /Next sweep/);
+			const stored = () =>
+				page.evaluate(async () => {
+					const outbox = await new Promise<number>((resolve, reject) => {
+						const open = indexedDB.open('cornicle-offline');
+						open.onerror = () => reject(open.error);
+						open.onsuccess = () => {
+							const req = open.result.transaction('outbox').objectStore('outbox').count();
+							req.onsuccess = () => resolve(req.result);
+						};
+					});
+					return { outbox, pages: (await caches.keys()).includes('cornicle-pages-v1') };
+				});
+			expect(await stored()).toEqual({ outbox: 1, pages: true });
+
+			const signOut = async (answer: 'accept' | 'dismiss') => {
+				const asked = new Promise<string>((resolve) =>
+					page.once('dialog', (d) => {
+						resolve(d.message());
+						void d[answer]();
+					})
+				);
+				const button = page.getByRole('button', { name: 'Sign out' });
+				if (!(await button.isVisible())) await page.getByRole('button', { name: 'Menu' }).click();
+				await button.click();
+				return asked;
+			};
+			// Staying keeps everything.
+			expect(await signOut('dismiss')).toMatch(/^1 record is not sent yet/);
+			expect(page.url()).toContain('/rounds');
+			expect(await stored()).toEqual({ outbox: 1, pages: true });
+			// Agreeing forgets it all, then signs out.
+			await signOut('accept');
+			await page.waitForURL(/\/signin/);
+			expect(await stored()).toEqual({ outbox: 0, pages: false });
+			await context.close();
+		}
+	);
 });
