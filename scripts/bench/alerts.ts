@@ -26,7 +26,7 @@ const rows = Array.from({ length: COUNT }, (_, i) => ({
 }));
 await Notification.bulkCreate(rows);
 const where = { dedupeKey: { [Op.like]: `${tag}:%` } };
-const worker = new AlertWorker({ sequelize: sq, settings, digests: false });
+const worker = new AlertWorker({ sequelize: sq, settings, digests: false, overdue: false });
 const t0 = performance.now();
 await Notification.update({ notBefore: new Date(Date.now() - 1000) }, { where });
 worker.start();

@@ -133,7 +133,8 @@ const worker = (over: Record<string, string> = {}) => {
 	const w = new AlertWorker({
 		sequelize: sq,
 		settings: { ...s, ...alertSettings({ ...env, ...over }) },
-		digests: false
+		digests: false,
+		overdue: false
 	});
 	live.push(w);
 	return w;

@@ -14,6 +14,7 @@ const worker = new AlertWorker({
 	settings,
 	id: process.env.ALERTS_WORKER_ID || undefined,
 	digests: process.env.ALERTS_DIGESTS !== 'off',
+	overdue: process.env.ALERTS_OVERDUE !== 'off',
 	log: (l) => console.error(l)
 });
 worker.start();

@@ -26,6 +26,8 @@ const schema = z
 		ALERTS_SEND_TIMEOUT_MS: num(10_000),
 		/** An SMS with no delivery report this long after sending is asked about at the provider. */
 		ALERTS_STATUS_CHECK_MS: num(10 * 60_000),
+		/** How often a worker looks for blocks whose re-scout is past due. */
+		ALERTS_OVERDUE_MS: num(15 * 60_000),
 		/** Local hour (the organisation's time zone) after which the daily digest goes out. */
 		ALERTS_DIGEST_HOUR: num(7)
 	})

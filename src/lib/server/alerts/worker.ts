@@ -4,6 +4,7 @@ import type { Sequelize } from 'sequelize';
 import { claimBatch, recordOutcome, releaseClaim, type ClaimedRow, type Outcome } from './claim';
 import { queueDigests } from './digest';
 import { mailTransport } from './mail';
+import { queueOverdueAlerts } from './overdueAlerts';
 import { checkUnconfirmed } from './reconcile';
 import { optedOut } from './recipients';
 import { sendMail, sendSms } from './send';
@@ -16,6 +17,8 @@ export interface WorkerOptions {
 	id?: string;
 	/** Queue the agronomists' daily digests (once a minute). Default on. */
 	digests?: boolean;
+	/** Queue scouting-overdue alerts (every ALERTS_OVERDUE_MS). Default on. */
+	overdue?: boolean;
 	log?: (line: string) => void;
 }
 
@@ -34,6 +37,7 @@ export class AlertWorker {
 	private loop: Promise<void> | null = null;
 	private wake: (() => void) | null = null;
 	private lastDigest = 0;
+	private lastOverdue = 0;
 	private lastStatusCheck = Date.now();
 	sent = 0;
 
@@ -65,6 +69,10 @@ export class AlertWorker {
 				if (this.o.digests !== false && Date.now() - this.lastDigest > 60_000) {
 					this.lastDigest = Date.now();
 					await queueDigests(this.sequelize, this.s);
+				}
+				if (this.o.overdue !== false && Date.now() - this.lastOverdue > this.s.ALERTS_OVERDUE_MS) {
+					this.lastOverdue = Date.now();
+					await queueOverdueAlerts(this.sequelize, this.s);
 				}
 				// Lost status callbacks: ask the provider about texts that never reported back.
 				if (Date.now() - this.lastStatusCheck > Math.min(60_000, this.s.ALERTS_STATUS_CHECK_MS)) {
