@@ -14,6 +14,37 @@ async function assigned(scoutId: number, blockId: number, transaction?: Transact
 	}));
 }
 
+/** What decides whether a user may read or file visits on a block. */
+export interface BlockFacts {
+	organisationId: number;
+	growerId: number | null;
+	/** Whether the user (a scout) has an active assignment on the block. */
+	assigned: () => Promise<boolean> | boolean;
+}
+
+/** The access rule for a block, shared by blockFor and the lean check of the visit write path. */
+export async function blockAccess(
+	user: SessionUser,
+	facts: BlockFacts | null,
+	mode: 'read' | 'write'
+): Promise<{ ok: true } | ({ ok: false } & Refusal)> {
+	if (!facts || facts.organisationId !== user.organisationId)
+		return { ok: false, ...notFound('block') };
+	if (user.role === 'admin' || user.role === 'agronomist') return { ok: true };
+	if (user.role === 'scout') {
+		if (await facts.assigned()) return { ok: true };
+		return {
+			ok: false,
+			status: 403,
+			message: 'You are not assigned to this block; ask an agronomist to assign it.'
+		};
+	}
+	if (user.role === 'grower' && mode === 'read' && facts.growerId === user.id) return { ok: true };
+	if (user.role === 'grower' && facts.growerId !== user.id)
+		return { ok: false, ...notFound('block') };
+	return { ok: false, status: 403, message: `A ${user.role} cannot file visits.` };
+}
+
 /**
  * A block the user may see (read) or file visits on (write). Another organisation's block, or
  * a grower's neighbour's, answers 404; a block of the scout's organisation they are not
@@ -29,22 +60,13 @@ export async function blockFor(
 		include: [{ model: Farm, as: 'farm', attributes: ['id', 'growerId', 'name'] }],
 		transaction
 	})) as (Block & { farm: Farm }) | null;
-	if (!block || block.organisationId !== user.organisationId)
-		return { ok: false, ...notFound('block') };
-	if (user.role === 'admin' || user.role === 'agronomist') return { ok: true, value: block };
-	if (user.role === 'scout') {
-		if (await assigned(user.id, block.id, transaction)) return { ok: true, value: block };
-		return {
-			ok: false,
-			status: 403,
-			message: 'You are not assigned to this block; ask an agronomist to assign it.'
-		};
-	}
-	if (user.role === 'grower' && mode === 'read' && block.farm.growerId === user.id)
-		return { ok: true, value: block };
-	if (user.role === 'grower' && block.farm.growerId !== user.id)
-		return { ok: false, ...notFound('block') };
-	return { ok: false, status: 403, message: `A ${user.role} cannot file visits.` };
+	const facts = block && {
+		organisationId: block.organisationId,
+		growerId: block.farm.growerId,
+		assigned: () => assigned(user.id, block.id, transaction)
+	};
+	const r = await blockAccess(user, facts, mode);
+	return r.ok ? { ok: true, value: block! } : r;
 }
 
 /** A trap the user may read: same organisation; scouts only on farms where they walk a block. */
