@@ -50,7 +50,8 @@ export const PAGES: Record<string, AccessRule> = {
 	'/(app)/recommendations': { roles: ['agronomist', 'admin'] },
 	'/(app)/library/products': { roles: ['agronomist', 'admin'] },
 	'/(app)/library/thresholds': { roles: ['agronomist', 'admin'] },
-	'/(app)/audit': { roles: ['agronomist', 'admin'] }
+	'/(app)/audit': { roles: ['agronomist', 'admin'] },
+	'/(app)/alerts': { roles: ['agronomist', 'admin'] }
 };
 
 /** Endpoints under src/routes/api that need a signed-in user, by "METHOD route id". */
@@ -139,7 +140,12 @@ export const ACTIONS: Record<string, AccessRule> = {
 	'/(app)/recommendations ?/applied': { roles: ADVISERS },
 	'/(app)/traps ?/add': { roles: ADVISERS },
 	'/(app)/weather ?/day': { roles: ['agronomist', 'admin', 'scout'] },
-	'/(app)/weather ?/csv': { roles: ['agronomist', 'admin', 'scout'] }
+	'/(app)/weather ?/csv': { roles: ['agronomist', 'admin', 'scout'] },
+	'/(app)/settings ?/contact': { roles: ALL_ROLES },
+	'/(app)/settings ?/save': { roles: ALL_ROLES },
+	'/(app)/settings ?/pause': { roles: ALL_ROLES },
+	'/(app)/settings ?/resume': { roles: ALL_ROLES },
+	'/(app)/settings ?/remove': { roles: ALL_ROLES }
 };
 
 /** Actions anyone may post (sign-in and sign-out). */

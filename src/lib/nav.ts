@@ -20,6 +20,7 @@ export const NAV: NavItem[] = [
 	{ href: '/recommendations', label: 'Advice', roles: ['agronomist', 'admin'] },
 	{ href: '/library/products', label: 'Library', roles: ['agronomist', 'admin'] },
 	{ href: '/audit', label: 'Audit', roles: ['agronomist', 'admin'] },
+	{ href: '/alerts', label: 'Alert log', roles: ['agronomist', 'admin'] },
 	{ href: '/region', label: 'Region', roles: ['regional'] },
 	{ href: '/admin/people', label: 'People', roles: ['admin'] },
 	{ href: '/settings', label: 'My alerts', roles: ['admin', 'agronomist', 'scout', 'grower'] }
