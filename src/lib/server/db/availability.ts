@@ -6,6 +6,7 @@ import {
 	TimeoutError,
 	type Sequelize
 } from 'sequelize';
+import { parts } from './connect';
 
 // Error codes that mean MariaDB could not be reached or went away, as opposed to a bad query.
 // The ER_* codes of 45000 and up are the mariadb driver's own (node_modules/mariadb/lib/misc/
@@ -71,10 +72,10 @@ export class Availability {
 	#downSince = 0;
 	#probing: Promise<boolean> | null = null;
 	#timer: ReturnType<typeof setTimeout> | null = null;
-	#url: URL;
+	#url: string;
 
 	constructor(url: string) {
-		this.#url = new URL(url);
+		this.#url = url;
 	}
 
 	get down() {
@@ -103,15 +104,15 @@ export class Availability {
 
 	/** One probe: a fresh connection and a ping. Resolves true when MariaDB answers. */
 	async probe(): Promise<boolean> {
-		const u = this.#url;
+		const { host, port, username: user, password, database } = parts(this.#url);
 		let conn: mariadb.Connection | null = null;
 		try {
 			conn = await mariadb.createConnection({
-				host: u.hostname,
-				port: Number(u.port || 3306),
-				user: decodeURIComponent(u.username),
-				password: decodeURIComponent(u.password),
-				database: u.pathname.replace(/^\//, ''),
+				host,
+				port,
+				user,
+				password,
+				database,
 				connectTimeout: PROBE_TIMEOUT_MS
 			});
 			await conn.ping();

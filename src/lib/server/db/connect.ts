@@ -8,7 +8,8 @@ export interface ConnectOptions {
 	pool?: Options['pool'];
 }
 
-function parts(url: string) {
+/** Host, port, user, password and database name from a `mariadb://` URL. */
+export function parts(url: string) {
 	const u = new URL(url);
 	return {
 		host: u.hostname,
