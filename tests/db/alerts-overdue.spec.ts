@@ -162,6 +162,29 @@ describe('scouting overdue alerts', () => {
 		);
 	});
 
+	it('two workers sweeping at once write each row once and both finish', async () => {
+		const today = new Date().toISOString().slice(0, 10);
+		const w = await alertWorld();
+		const ids = await soyIds();
+		const blocks = [w.block];
+		for (let i = 0; i < 5; i++) blocks.push(await buildBlock(w.farm, ids));
+		for (const b of blocks) {
+			await b.update({ lastVisitOn: isoPlusDays(today, -8), currentLevel: 'action' });
+			await ScoutingAssignment.create({ blockId: b.id, scoutId: w.scout.id });
+		}
+		await subscribe(w.scout, 'sms');
+		await subscribe(w.scout, 'email');
+		await subscribe(w.agronomist, 'email', { minLevel: 'action' });
+		const counts = await Promise.all([sweep(w.org.id), sweep(w.org.id), sweep(w.org.id)]);
+		const rows = await Notification.findAll({
+			where: { organisationId: w.org.id, kind: 'scouting-overdue' }
+		});
+		expect(rows).toHaveLength(blocks.length * 3);
+		expect(new Set(rows.map((r) => r.dedupeKey)).size).toBe(rows.length);
+		// What each sweep counts may overlap (a row seen as new by two), but never falls short.
+		expect(counts.reduce((a, b) => a + b, 0)).toBeGreaterThanOrEqual(rows.length);
+	});
+
 	it('another organisation hears nothing of it', async () => {
 		const today = new Date().toISOString().slice(0, 10);
 		const w = await alertWorld();
