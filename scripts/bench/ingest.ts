@@ -3,6 +3,7 @@
 import autocannon from 'autocannon';
 import mariadb from 'mariadb';
 import { randomUUID } from 'node:crypto';
+import os from 'node:os';
 import { ms, percentile, signIn } from './stats';
 
 const APP = process.env.BENCH_APP_URL!;
@@ -182,6 +183,13 @@ try {
 	);
 	console.log(
 		`  ratio app/raw: ${ratio.toFixed(2)} (target >= 0.50: ${ratio >= 0.5 ? 'met' : 'NOT met'}); p95 target < 50 ms: ${p95 < 50 ? 'met' : 'NOT met'}`
+	);
+	// Other work on the machine slows both sides; the load average says how busy it was.
+	console.log(
+		`  (${os.cpus().length} CPUs, load average ${os
+			.loadavg()
+			.map((n) => n.toFixed(1))
+			.join(' ')})`
 	);
 	if (ok !== REQUESTS) console.log(`  WARNING: ${REQUESTS - ok} requests were not answered 2xx`);
 } finally {

@@ -1,8 +1,13 @@
 // The organisation map endpoint with 5,000 extra blocks in the demo advisory firm: seeds them in
 // bulk (once per bench database), signs in as the demo agronomist and times GET /api/map/blocks
-// for the whole organisation and for a typical view. Target: median under 150 ms.
-import mariadb from 'mariadb';
+// for the whole organisation and for a typical view. Target: median under 150 ms. Beside it, the
+// same bytes as a static file from a Node server of the same kind (sirv, as adapter-node uses for
+// the app's assets), timed in the same run: target at most 3x the static file's median.
+import { spawn } from 'node:child_process';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
+import { join } from 'node:path';
+import mariadb from 'mariadb';
 import { ms, percentile, signIn } from './stats';
 
 const APP = process.env.BENCH_APP_URL!;
@@ -76,6 +81,7 @@ async function time(url: string, cookie: string) {
 	const db: number[] = [];
 	let features = 0;
 	let bytes = 0;
+	let body = '';
 	for (let i = 0; i < RUNS + 5; i++) {
 		const t0 = performance.now();
 		const res = await fetch(url, { headers: { cookie } });
@@ -88,6 +94,7 @@ async function time(url: string, cookie: string) {
 		if (i === 0) {
 			features = (JSON.parse(text) as { features: unknown[] }).features.length;
 			bytes = text.length;
+			body = text;
 		}
 	}
 	return {
@@ -95,8 +102,33 @@ async function time(url: string, cookie: string) {
 		bytes,
 		median: percentile(times, 50),
 		p95: percentile(times, 95),
-		dbMedian: percentile(db, 50)
+		dbMedian: percentile(db, 50),
+		body
 	};
+}
+
+/** Serves `body` as a static file from a child process and times it like the endpoint. */
+async function staticReference(body: string, cookie: string) {
+	const dir = mkdtempSync(join(os.tmpdir(), 'cornicle-map-bench-'));
+	writeFileSync(join(dir, 'blocks.geojson'), body);
+	const port = Number(new URL(APP).port) + 7;
+	const child = spawn(
+		process.execPath,
+		[join(import.meta.dirname, 'static-server.mjs'), dir, String(port)],
+		{
+			stdio: ['ignore', 'pipe', 'inherit']
+		}
+	);
+	try {
+		await new Promise<void>((resolve, reject) => {
+			child.stdout!.once('data', () => resolve());
+			child.once('exit', (code) => reject(new Error(`static server exited (${code})`)));
+		});
+		return await time(`http://127.0.0.1:${port}/blocks.geojson`, cookie);
+	} finally {
+		child.kill();
+		rmSync(dir, { recursive: true, force: true });
+	}
 }
 
 async function main() {
@@ -117,8 +149,10 @@ async function main() {
 		['a 10 km x 8 km view', '/api/map/blocks?bbox=-96.8,47.1,-96.67,47.17']
 	];
 	let worst = 0;
+	let whole: Awaited<ReturnType<typeof time>> | null = null;
 	for (const [label, path] of cases) {
 		const r = await time(`${APP}${path}`, cookie);
+		whole ??= r;
 		worst = Math.max(worst, r.median);
 		console.log(
 			`  map blocks, ${label}: ${r.features} features, ${(r.bytes / 1e6).toFixed(2)} MB, ` +
@@ -126,6 +160,13 @@ async function main() {
 				`(query and GeoJSON in MariaDB: median ${ms(r.dbMedian)})`
 		);
 	}
+	const ref = await staticReference(whole!.body, cookie);
+	if (ref.bytes !== whole!.bytes) throw new Error('the static file is not the same bytes');
+	const ratio = whole!.median / ref.median;
+	console.log(
+		`  the same ${(ref.bytes / 1e6).toFixed(2)} MB as a static file (Node + sirv): median ${ms(ref.median)}, ` +
+			`p95 ${ms(ref.p95)}; endpoint/static ${ratio.toFixed(2)}x (target <= 3x: ${ratio <= 3 ? 'met' : 'NOT met'})`
+	);
 	// Other work on the machine slows every figure; the load average says how busy it was.
 	const load = os
 		.loadavg()
