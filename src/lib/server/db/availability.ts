@@ -72,6 +72,7 @@ export class Availability {
 	#downSince = 0;
 	#probing: Promise<boolean> | null = null;
 	#timer: ReturnType<typeof setTimeout> | null = null;
+	#stopped = false;
 	#url: string;
 
 	constructor(url: string) {
@@ -87,11 +88,16 @@ export class Availability {
 		return this.#down ? (Date.now() - this.#downSince) / 1000 : 0;
 	}
 
-	/** Makes every pool acquire of `sequelize` fail fast while the database is known down. */
+	/**
+	 * Makes every pool acquire of `sequelize` (and every new connection, such as Sequelize's first
+	 * one that reads the server version) fail fast while the database is known down.
+	 */
 	guard(sequelize: Sequelize) {
-		sequelize.addHook('beforePoolAcquire', () => {
+		const check = () => {
 			if (this.#down) throw new DatabaseDownError(this.downForS);
-		});
+		};
+		sequelize.addHook('beforePoolAcquire', check);
+		sequelize.addHook('beforeConnect', check);
 		return this;
 	}
 
@@ -138,12 +144,14 @@ export class Availability {
 			this.#downSince = Date.now();
 			console.error('database: not answering; failing fast and probing every 0.5 s');
 		}
+		if (this.#stopped) return;
 		this.#timer = setTimeout(() => void this.#check(), PROBE_MS);
 		this.#timer.unref?.();
 	}
 
 	/** Stops probing (for tests and shutdown). */
 	stop() {
+		this.#stopped = true;
 		if (this.#timer) clearTimeout(this.#timer);
 		this.#timer = null;
 	}
