@@ -1,4 +1,4 @@
-import { QueryTypes, type Transaction } from 'sequelize';
+import { QueryTypes, type InferCreationAttributes, type Transaction } from 'sequelize';
 import type { AssessBlockInput, ThresholdRule as EngineRule } from '../engine';
 import { Block } from './db/models';
 
@@ -156,8 +156,8 @@ export async function engineInput(blockId: number, asOf: string, transaction?: T
 	const unitsPerPlant = last ? units.find((u) => u.id === last.sampleUnitId)?.unitsPerPlant : null;
 	const input: AssessBlockInput = {
 		asOf,
-		crop: json(library.cropParams),
-		pest: json(library.pestParams),
+		crop: json<AssessBlockInput['crop']>(library.cropParams),
+		pest: json<AssessBlockInput['pest']>(library.pestParams),
 		thresholds: rules.map((r) => ({
 			...r,
 			cropCode: library.cropCode,
@@ -191,7 +191,10 @@ export async function engineInput(blockId: number, asOf: string, transaction?: T
 		})),
 		weather
 	};
-	const block = Block.build(row, { isNewRecord: false, raw: true });
+	const block = Block.build(row as unknown as InferCreationAttributes<Block>, {
+		isNewRecord: false,
+		raw: true
+	});
 	return { block, input, visitIds: visits.map((v) => v.id) };
 }
 
