@@ -1,6 +1,7 @@
 import { QueryTypes } from 'sequelize';
 import type { LevelKey } from '$lib/engine';
 import { db } from '../db';
+import { FOLLOW_UP_DUE_SQL } from '../scouting/due';
 
 export interface BlockRow {
 	id: number;
@@ -45,10 +46,16 @@ export function blocksOfGrower(growerId: number, organisationId: number) {
 	);
 }
 
-/** The blocks a scout is assigned to (active assignments only). */
+/**
+ * The blocks a scout is assigned to (active assignments only), with the scout's own interval
+ * and the block's open follow-up date (the late-scouting rule in scouting/due.ts).
+ */
 export function blocksOfScout(scoutId: number, organisationId: number) {
-	return db().query<BlockRow & { intervalDays: number }>(
-		`${SELECT.replace('b.rescout_days AS rescoutDays', 'a.interval_days AS rescoutDays')}
+	return db().query<BlockRow & { followUpDue: string | null }>(
+		`${SELECT.replace(
+			'b.rescout_days AS rescoutDays',
+			`a.interval_days AS rescoutDays, ${FOLLOW_UP_DUE_SQL} AS followUpDue`
+		)}
 		  JOIN scouting_assignments a ON a.block_id = b.id AND a.active = 1
 		 WHERE a.scout_id = ? AND b.organisation_id = ?
 		 ORDER BY b.last_visit_on IS NOT NULL, DATE_ADD(b.last_visit_on, INTERVAL a.interval_days DAY), b.name`,

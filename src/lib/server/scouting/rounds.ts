@@ -12,7 +12,10 @@ export interface DayBlock {
 	reason: string | null;
 	lastVisitOn: string | null;
 	intervalDays: number;
-	/** Days until the re-scout is due: negative when overdue, null when never visited. */
+	/**
+	 * Days until the re-scout is due (the interval, or an earlier open follow-up date): negative
+	 * when overdue, null when never visited.
+	 */
 	dueIn: number | null;
 	status: 'never' | 'overdue' | 'today' | 'soon' | 'later';
 }
@@ -21,9 +24,20 @@ export interface DayBlock {
 export async function scoutsDay(user: SessionUser, today = new Date()): Promise<DayBlock[]> {
 	const rows = await blocksOfScout(user.id, user.organisationId);
 	const out = rows.map((b): DayBlock => {
-		const dueIn = b.lastVisitOn
+		// Due at the scout's interval after the last visit, or sooner at an open follow-up date
+		// (the same rule as the desk and the overdue alerts, scouting/due.ts).
+		const byInterval = b.lastVisitOn
 			? b.rescoutDays - differenceInCalendarDays(today, parseISO(String(b.lastVisitOn)))
 			: null;
+		const byFollowUp = b.followUpDue
+			? differenceInCalendarDays(parseISO(String(b.followUpDue).slice(0, 10)), today)
+			: null;
+		const dueIn =
+			byInterval === null
+				? null
+				: byFollowUp === null
+					? byInterval
+					: Math.min(byInterval, byFollowUp);
 		const status =
 			dueIn === null
 				? 'never'
