@@ -1,4 +1,6 @@
 // A grower sets up their own text alerts on a phone; an agronomist reads the alert log.
+import { mkdirSync } from 'node:fs';
+import { join } from 'node:path';
 import type { Browser } from 'playwright-core';
 import { Op } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -14,6 +16,8 @@ import { logRow } from '../helpers/alertLog';
 import { DESKTOP, launch, newPage, PHONE, signInAs } from '../helpers/browser';
 import { closeTestDb, testDb } from '../helpers/db';
 
+// Screens are kept for people to look at (not compared): .data/screens/alerts-*.png
+const SHOTS = join(import.meta.dirname, '../../.data/screens');
 let browser: Browser;
 let harlan: User;
 let before: { phone: string | null; subscriptions: number[] };
@@ -21,6 +25,7 @@ const made: number[] = [];
 
 beforeAll(async () => {
 	testDb();
+	mkdirSync(SHOTS, { recursive: true });
 	browser = await launch();
 	harlan = (await User.findOne({ where: { email: AS.grower } }))!;
 	const subs = await Subscription.findAll({ where: { userId: harlan.id } });
@@ -119,4 +124,28 @@ describe('alerts settings and log', () => {
 		expect(await table.locator(`tr[data-id="${made[0]}"]`).count()).toBe(0);
 		await context.close();
 	});
+
+	for (const [name, viewport] of [
+		['phone', PHONE],
+		['desktop', DESKTOP]
+	] as const) {
+		it(`both pages fit a ${name} (${viewport.width} px)`, async () => {
+			for (const [who, path] of [
+				['grower', '/settings'],
+				['agronomist', '/alerts']
+			] as const) {
+				const { context, page } = await newPage(browser, { viewport });
+				await signInAs(page, who);
+				await page.goto(path);
+				await page.getByRole('heading', { level: 1 }).waitFor();
+				const width = await page.evaluate(() => document.documentElement.scrollWidth);
+				expect(width, `${path} at ${viewport.width}`).toBeLessThanOrEqual(viewport.width);
+				await page.screenshot({
+					path: join(SHOTS, `alerts${path.replace('/', '-')}-${name}.png`),
+					fullPage: true
+				});
+				await context.close();
+			}
+		});
+	}
 });
