@@ -31,6 +31,7 @@ export const ALERT_KINDS = [
 	'level-stirring',
 	'level-calm',
 	'recommendation',
+	'scouting-overdue',
 	'digest'
 ] as const;
 export type AlertKind = (typeof ALERT_KINDS)[number];
@@ -41,6 +42,7 @@ export const KIND_WORDS: Record<AlertKind, string> = {
 	'level-stirring': 'Level: stirring',
 	'level-calm': 'Level: calm',
 	recommendation: 'Recommendation',
+	'scouting-overdue': 'Scouting late',
 	digest: 'Daily digest'
 };
 
