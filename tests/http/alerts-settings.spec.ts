@@ -88,6 +88,27 @@ describe('where alerts go', () => {
 		expect(after!.email).toBe(before!.email);
 	});
 
+	it('changes the sign-in address only with the current password (common practice)', async () => {
+		const org = await buildOrganisation();
+		const p = await buildUser('grower', org.id);
+		const next = `moved-${p.user.id}@example.test`;
+		for (const [currentPassword, message] of [
+			['', 'Current password: needed to change the address you sign in with'],
+			['not-my-password', 'Current password: does not match']
+		] as const) {
+			const res = await post(p, 'contact', { email: next, phone: '', currentPassword });
+			expect(res.status).toBe(400);
+			const page = await res.text();
+			expect(page).toContain(message);
+			expect(page).not.toContain('not-my-password'); // never echoed back
+		}
+		expect((await User.findByPk(p.user.id))!.email).toBe(p.user.email);
+		const ok = await post(p, 'contact', { email: next, phone: '', currentPassword: p.password });
+		expect(ok.status).toBe(200);
+		expect((await User.findByPk(p.user.id))!.email).toBe(next);
+		expect(await signInCookie(next, p.password)).toBeTruthy();
+	});
+
 	it('audits a change without writing the number into the trail', async () => {
 		const org = await buildOrganisation();
 		const p = await buildUser('agronomist', org.id);

@@ -76,5 +76,7 @@ export const contactSchema = z.object({
 		.trim()
 		.toLowerCase()
 		.pipe(z.email('E-mail address: enter a valid address, like name@example.org').max(254)),
-	phone: z.string().trim().max(40, 'Phone number is too long').default('')
+	phone: z.string().trim().max(40, 'Phone number is too long').default(''),
+	/** Asked for only when the e-mail address (the sign-in) changes. */
+	currentPassword: z.string().max(200, 'Current password: too long').default('')
 });

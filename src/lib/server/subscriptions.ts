@@ -1,3 +1,4 @@
+import { verify } from '@node-rs/argon2';
 import { error } from '@sveltejs/kit';
 import { Op, QueryTypes } from 'sequelize';
 import type { z } from 'zod';
@@ -172,6 +173,12 @@ export async function saveContact(
 			email: me.email !== input.email,
 			phone: me.phoneE164 !== phone
 		};
+		// The e-mail address is also the sign-in: changing it takes the current password, so a
+		// session left open on a shared phone cannot hand the account to another address.
+		if (changed.email) {
+			const refusal = await emailChangeRefused(me.passwordHash, input.currentPassword);
+			if (refusal) return { ok: false as const, field: 'currentPassword', message: refusal };
+		}
 		await me.update({ email: input.email, phoneE164: phone }, { transaction: t });
 		let paused = 0;
 		if (!phone)
@@ -194,4 +201,12 @@ export async function saveContact(
 			);
 		return { ok: true as const, phone };
 	});
+}
+
+async function emailChangeRefused(hash: string | null, password: string) {
+	if (!hash)
+		return 'Current password: this account signs in by e-mail link only; ask an administrator to change its address';
+	if (!password) return 'Current password: needed to change the address you sign in with';
+	if (!(await verify(hash, password))) return 'Current password: does not match';
+	return null;
 }

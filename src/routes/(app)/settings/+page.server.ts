@@ -117,6 +117,7 @@ export const actions: Actions = {
 		const form = await superValidate(event.request, contactAdapter, { id: 'contact' });
 		if (!form.valid) return fail(400, { contact: form });
 		const r = await saveContact(user, form.data);
+		form.data.currentPassword = ''; // never sent back to the page
 		if (!r.ok) return setError(form, r.field as 'phone', r.message);
 		if (r.phone) form.data.phone = displayPhone(r.phone, await countryOf(user.organisationId));
 		return { contact: form, done: 'Saved where your alerts go.' };
