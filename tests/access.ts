@@ -4,6 +4,8 @@
 import type { Role } from '../src/lib/roles';
 
 export const ALL_ROLES: Role[] = ['admin', 'agronomist', 'scout', 'grower', 'regional'];
+/** Everyone who can be sent alerts (My alerts); the regional view is not. */
+const ALERTED: Role[] = ['admin', 'agronomist', 'scout', 'grower'];
 
 export interface AccessRule {
 	/** The URL to probe; defaults to the route id without groups. */
@@ -37,7 +39,7 @@ export const PAGES: Record<string, AccessRule> = {
 		roles: ['agronomist', 'admin']
 	},
 	'/(app)/admin/people': { roles: ['admin'] },
-	'/(app)/settings': { roles: ALL_ROLES },
+	'/(app)/settings': { roles: ALERTED },
 	'/(app)/blocks/[id]': { path: '/blocks/{block}', roles: ['agronomist', 'admin', 'grower'] },
 	'/(app)/blocks/[id]/recommend': {
 		path: '/blocks/{block}/recommend',
@@ -141,11 +143,11 @@ export const ACTIONS: Record<string, AccessRule> = {
 	'/(app)/traps ?/add': { roles: ADVISERS },
 	'/(app)/weather ?/day': { roles: ['agronomist', 'admin', 'scout'] },
 	'/(app)/weather ?/csv': { roles: ['agronomist', 'admin', 'scout'] },
-	'/(app)/settings ?/contact': { roles: ALL_ROLES },
-	'/(app)/settings ?/save': { roles: ALL_ROLES },
-	'/(app)/settings ?/pause': { roles: ALL_ROLES },
-	'/(app)/settings ?/resume': { roles: ALL_ROLES },
-	'/(app)/settings ?/remove': { roles: ALL_ROLES }
+	'/(app)/settings ?/contact': { roles: ALERTED },
+	'/(app)/settings ?/save': { roles: ALERTED },
+	'/(app)/settings ?/pause': { roles: ALERTED },
+	'/(app)/settings ?/resume': { roles: ALERTED },
+	'/(app)/settings ?/remove': { roles: ALERTED }
 };
 
 /** Actions anyone may post (sign-in and sign-out). */

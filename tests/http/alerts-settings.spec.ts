@@ -224,6 +224,21 @@ describe('subscriptions', () => {
 		);
 		expect(await Subscription.count({ where: { userId: p.user.id } })).toBe(0);
 	});
+
+	it('will not resume a text alert once the number is gone, and says which field to fill', async () => {
+		const org = await buildOrganisation();
+		const p = await buildUser('agronomist', org.id);
+		await post(p, 'contact', { email: p.user.email, phone: '+1 213 373 4253' });
+		const add = await post(p, 'save', { channel: 'sms', scope: 'all', minLevel: 'action' });
+		expect(add.status).toBe(303);
+		const id = Number(new URL(add.headers.get('location')!, 'http://x').searchParams.get('saved'));
+		await post(p, 'contact', { email: p.user.email, phone: '' }); // pauses text alerts
+		expect((await Subscription.findByPk(id))!.active).toBe(false);
+		const res = await post(p, 'resume', { id: String(id) });
+		expect(res.status).toBe(400);
+		expect(await res.text()).toContain('Phone number: add your mobile number above');
+		expect((await Subscription.findByPk(id))!.active).toBe(false);
+	});
 });
 
 describe('alert log', () => {

@@ -1,6 +1,6 @@
 import { verify } from '@node-rs/argon2';
 import { error } from '@sveltejs/kit';
-import { Op, QueryTypes } from 'sequelize';
+import { Op, QueryTypes, UniqueConstraintError } from 'sequelize';
 import type { z } from 'zod';
 import { parsePhone, phoneCountry } from '$lib/phone';
 import type { contactSchema, subscriptionSchema } from '$lib/schemas/alerts';
@@ -123,12 +123,16 @@ export async function changeSubscription(
 			transaction: t,
 			lock: t.LOCK.UPDATE
 		});
-		if (!s) return false;
+		if (!s) return 'missing' as const;
+		if (change === 'resume' && s.channel === 'sms') {
+			const me = await User.findByPk(user.id, { transaction: t });
+			if (!me?.phoneE164) return 'no-phone' as const;
+		}
 		const details = { channel: s.channel, scope: scopeOf(s) };
 		if (change === 'remove') await s.destroy({ transaction: t });
 		else await s.update({ active: change === 'resume' }, { transaction: t });
 		await audit(entry(user, change === 'remove' ? 'removed' : change + 'd', id, details), t);
-		return true;
+		return 'done' as const;
 	});
 }
 
@@ -179,7 +183,18 @@ export async function saveContact(
 			const refusal = await emailChangeRefused(me.passwordHash, input.currentPassword);
 			if (refusal) return { ok: false as const, field: 'currentPassword', message: refusal };
 		}
-		await me.update({ email: input.email, phoneE164: phone }, { transaction: t });
+		try {
+			await me.update({ email: input.email, phoneE164: phone }, { transaction: t });
+		} catch (e) {
+			// Someone else took the address between the check above and this write.
+			if (e instanceof UniqueConstraintError)
+				return {
+					ok: false as const,
+					field: 'email',
+					message: 'E-mail address: another account uses it'
+				};
+			throw e;
+		}
 		let paused = 0;
 		if (!phone)
 			[paused] = await Subscription.update(

@@ -15,7 +15,10 @@ import {
 	scopeOf,
 	scopeOptions
 } from '$lib/server/subscriptions';
-import { ROLES } from '$lib/roles';
+import type { Role } from '$lib/roles';
+
+/** Everyone who can be sent alerts; the regional view gets none (it sees no grower's blocks). */
+const ALERTED: Role[] = ['admin', 'agronomist', 'scout', 'grower'];
 import type { Actions, PageServerLoad, RequestEvent } from './$types';
 
 const contactAdapter = zod4(contactSchema);
@@ -36,7 +39,7 @@ interface Row {
 
 /** The signed-in person's own alert subscriptions and the addresses they go to. */
 export const load: PageServerLoad = async (event) => {
-	const user = requireRole(event, ...ROLES);
+	const user = requireRole(event, ...ALERTED);
 	const [rows, [me], [optOut], scopes, country] = await Promise.all([
 		db().query<Row>(
 			`SELECT s.id, s.channel, s.min_level AS minLevel, s.quiet_start AS quietStart,
@@ -104,16 +107,20 @@ const idOf = async (event: RequestEvent) =>
 		.safeParse((await event.request.formData()).get('id'));
 
 async function change(event: RequestEvent, what: 'pause' | 'resume' | 'remove') {
-	const user = requireRole(event, ...ROLES);
+	const user = requireRole(event, ...ALERTED);
 	const id = await idOf(event);
-	if (!id.success || !(await changeSubscription(user, id.data, what)))
-		error(404, 'No such subscription.');
+	const r = id.success ? await changeSubscription(user, id.data, what) : 'missing';
+	if (r === 'missing') error(404, 'No such subscription.');
+	if (r === 'no-phone')
+		return fail(400, {
+			problem: 'Phone number: add your mobile number above before resuming text messages.'
+		});
 	return { done: { pause: 'Paused.', resume: 'Resumed.', remove: 'Removed.' }[what] };
 }
 
 export const actions: Actions = {
 	contact: async (event) => {
-		const user = requireRole(event, ...ROLES);
+		const user = requireRole(event, ...ALERTED);
 		const form = await superValidate(event.request, contactAdapter, { id: 'contact' });
 		if (!form.valid) return fail(400, { contact: form });
 		const r = await saveContact(user, form.data);
@@ -123,7 +130,7 @@ export const actions: Actions = {
 		return { contact: form, done: 'Saved where your alerts go.' };
 	},
 	save: async (event) => {
-		const user = requireRole(event, ...ROLES);
+		const user = requireRole(event, ...ALERTED);
 		const form = await superValidate(event.request, subscriptionAdapter, { id: 'subscription' });
 		if (!form.valid) return fail(400, { form });
 		const r = await saveSubscription(user, form.data);
