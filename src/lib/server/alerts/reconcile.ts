@@ -60,7 +60,9 @@ export async function checkUnconfirmed(
 			});
 			if (moved) changed++;
 		} catch {
-			// The provider did not answer: the row stays `sent` and is asked about next interval.
+			// The provider did not answer: these rows stay `sent` and are asked about next
+			// interval; the rest wait too, so a hanging provider costs one timeout, not fifty.
+			break;
 		}
 	}
 	return changed;

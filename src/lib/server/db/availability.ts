@@ -108,32 +108,49 @@ export class Availability {
 		void this.#check();
 	}
 
-	/** One probe: a fresh connection and a ping. Resolves true when MariaDB answers. */
+	/**
+	 * One probe: a fresh connection and a ping, the whole of it bounded by PROBE_TIMEOUT_MS (a
+	 * host gone silent after the handshake must not hold the probe for TCP's own timeout).
+	 * Resolves true when MariaDB answers.
+	 */
 	async probe(): Promise<boolean> {
-		const { host, port, username: user, password, database } = parts(this.#url);
 		let conn: mariadb.Connection | null = null;
-		try {
+		let timer: ReturnType<typeof setTimeout> | undefined;
+		const attempt = (async () => {
+			const { host, port, username: user, password, database } = parts(this.#url);
 			conn = await mariadb.createConnection({
 				host,
 				port,
 				user,
 				password,
 				database,
-				connectTimeout: PROBE_TIMEOUT_MS
+				connectTimeout: PROBE_TIMEOUT_MS,
+				socketTimeout: PROBE_TIMEOUT_MS
 			});
 			await conn.ping();
 			return true;
-		} catch {
-			return false;
+		})();
+		const late = new Promise<boolean>((resolve) => {
+			timer = setTimeout(() => resolve(false), PROBE_TIMEOUT_MS + 500);
+		});
+		try {
+			return await Promise.race([attempt, late]).catch(() => false);
 		} finally {
-			await conn?.end().catch(() => conn?.destroy());
+			clearTimeout(timer);
+			attempt.catch(() => false).finally(() => (conn as mariadb.Connection | null)?.destroy());
 		}
 	}
 
 	async #check() {
-		this.#probing = this.probe();
-		const up = await this.#probing;
-		this.#probing = null;
+		let up = false;
+		try {
+			this.#probing = this.probe();
+			up = await this.#probing;
+		} catch {
+			up = false;
+		} finally {
+			this.#probing = null;
+		}
 		if (up) {
 			if (this.#down) console.error(`database: back after ${this.downForS.toFixed(1)} s`);
 			this.#down = false;
