@@ -54,8 +54,8 @@ function hears(r: Recipient, level: LevelKey | null) {
  * are not told: the visit is the scouts' and agronomists' work. A block never visited has no
  * re-scout to miss: it heads the scout's rounds and the digest instead. One row per person,
  * channel, block and due date (the dedupe key), none for a person alerted for the block within
- * the repeat window; SMS waits out quiet hours. All of it is one transaction, so a failure
- * leaves no rows at all.
+ * the repeat window; SMS waits out quiet hours. Each organisation is one transaction, so a failure
+ * leaves none of its rows.
  */
 export async function queueOverdueAlerts(
 	sq: Sequelize,
@@ -63,9 +63,33 @@ export async function queueOverdueAlerts(
 	now = new Date(),
 	onlyOrg?: number
 ): Promise<number> {
+	const orgs = await sq.query<{ id: number; timezone: string }>(
+		`SELECT id, timezone FROM organisations ${onlyOrg ? 'WHERE id = :only' : ''}`,
+		{ replacements: { only: onlyOrg ?? 0 }, type: QueryTypes.SELECT }
+	);
+	// One transaction per organisation: each one's rows are written whole or not at all, and one
+	// that fails (a bad time zone, say) does not hold back the others' alerts.
+	let queued = 0;
+	for (const org of orgs) {
+		try {
+			queued += await sweepWithRetry(sq, s, now, org);
+		} catch (e) {
+			if (onlyOrg) throw e;
+			console.error(`overdue alerts: organisation ${org.id} skipped: ${(e as Error).message}`);
+		}
+	}
+	return queued;
+}
+
+async function sweepWithRetry(
+	sq: Sequelize,
+	s: AlertSettings,
+	now: Date,
+	org: { id: number; timezone: string }
+): Promise<number> {
 	for (let attempt = 1; ; attempt++) {
 		try {
-			return await sweep(sq, s, now, onlyOrg);
+			return await sq.transaction((t) => queueForOrganisation(sq, s, t, org, now));
 		} catch (e) {
 			// Two workers sweeping at once may deadlock on the outbox's unique key; the victim's
 			// transaction rolled back whole, so running it again is safe.
@@ -74,20 +98,6 @@ export async function queueOverdueAlerts(
 			await new Promise((r) => setTimeout(r, 20 + Math.random() * 80 * attempt));
 		}
 	}
-}
-
-function sweep(sq: Sequelize, s: AlertSettings, now: Date, onlyOrg?: number) {
-	return sq.transaction(async (t) => {
-		const orgs = await select<{ id: number; timezone: string }>(
-			sq,
-			t,
-			`SELECT id, timezone FROM organisations ${onlyOrg ? 'WHERE id = :only' : ''}`,
-			{ only: onlyOrg ?? 0 }
-		);
-		let queued = 0;
-		for (const org of orgs) queued += await queueForOrganisation(sq, s, t, org, now);
-		return queued;
-	});
 }
 
 async function queueForOrganisation(
