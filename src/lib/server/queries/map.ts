@@ -37,26 +37,12 @@ const DRAWN = `(b.boundary IS NOT NULL AND b.boundary <> 'null')`;
 const levelAsOf = (col: 'level' | 'reason') =>
 	`(SELECT a.${col} FROM assessments a WHERE a.block_id = b.id AND a.computed_at < DATE_ADD(?, INTERVAL 1 DAY) ORDER BY a.computed_at DESC, a.id DESC LIMIT 1)`;
 
-/**
- * Blocks for the map as GeoJSON FeatureCollection text, built by MariaDB in one query: inside
- * `bbox` (overlapping it), filtered by crop and pest codes; with `on`, the level from the newest
- * assessment up to the end of that day. The list carries only what the map draws and filters
- * on (BlockFeatureProps); `detail` adds the level's reason and the crop and pest names.
- */
-export async function mapBlocks(
-	scope: MapScope,
-	q: { bbox?: BBox; crop?: string; pest?: string; on?: string; blockId?: number },
-	detail = false
-): Promise<string> {
-	const args: unknown[] = [];
-	if (q.on) args.push(q.on);
-	if (q.on && detail) args.push(q.on);
-	const level = q.on ? levelAsOf('level') : 'b.current_level';
-	const extra = detail
-		? `, 'reason', ${q.on ? levelAsOf('reason') : 'b.current_reason'}, 'cropName', c.name, 'pestName', p.name`
-		: '';
+type BlockQuery = { bbox?: BBox; crop?: string; pest?: string; on?: string; blockId?: number };
+
+/** The WHERE of the block queries: the organisation, the scope and the filters. */
+function blockWhere(scope: MapScope, q: BlockQuery) {
 	const where = ['b.organisation_id = ?'];
-	args.push(scope.organisationId);
+	const args: unknown[] = [scope.organisationId];
 	const s = scopeSql(scope, { farm: 'f', block: 'b' });
 	where.push(...s.where);
 	args.push(...s.args);
@@ -76,8 +62,50 @@ export async function mapBlocks(
 		where.push('p.code = ?');
 		args.push(q.pest);
 	}
+	return { sql: where.join(' AND '), args };
+}
+
+const BLOCK_JOINS = `FROM blocks b
+		   JOIN farms f ON f.id = b.farm_id
+		   JOIN crops c ON c.id = b.crop_id
+		   JOIN pests p ON p.id = b.pest_id`;
+
+// Everything the current-level list (not `detail`, not `on`) is made of, per block.
+const PRINT_ROW = `CONCAT_WS('|', b.id, IFNULL(b.name, '~'), IFNULL(f.name, '~'), c.code, p.code,
+		IFNULL(b.area_ha, '~'), IFNULL(b.current_level, '~'), IFNULL(b.last_visit_on, '~'),
+		IFNULL(b.centroid_lat, '~'), IFNULL(b.centroid_lon, '~'),
+		IFNULL(LENGTH(b.boundary), '~'), IFNULL(CRC32(b.boundary), '~'))`;
+/**
+ * A fingerprint of the blocks a current-level list holds: their number and two independent
+ * checksums (CRC-32 and CRC-32C) of every field the list shows, XORed over the blocks. Any
+ * change to a shown field, or a block entering or leaving the scope, changes it.
+ */
+const PRINT = `CONCAT(COUNT(*), '.', COALESCE(BIT_XOR(CRC32(${PRINT_ROW})), 0), '.',
+		COALESCE(BIT_XOR(CRC32C(${PRINT_ROW})), 0))`;
+
+/**
+ * Blocks for the map as GeoJSON FeatureCollection text, built by MariaDB in one query: inside
+ * `bbox` (overlapping it), filtered by crop and pest codes; with `on`, the level from the newest
+ * assessment up to the end of that day. The list carries only what the map draws and filters
+ * on (BlockFeatureProps); `detail` adds the level's reason and the crop and pest names.
+ */
+export async function mapBlocks(scope: MapScope, q: BlockQuery, detail = false): Promise<string> {
+	return (await blocksWithPrint(scope, q, detail)).body;
+}
+
+/** As mapBlocks, with the fingerprint of the same rows read in the same statement. */
+export async function blocksWithPrint(scope: MapScope, q: BlockQuery, detail = false) {
+	const args: unknown[] = [];
+	if (q.on) args.push(q.on);
+	if (q.on && detail) args.push(q.on);
+	const level = q.on ? levelAsOf('level') : 'b.current_level';
+	const extra = detail
+		? `, 'reason', ${q.on ? levelAsOf('reason') : 'b.current_reason'}, 'cropName', c.name, 'pestName', p.name`
+		: '';
+	const w = blockWhere(scope, q);
+	args.push(...w.args);
 	// The stored boundary was checked when saved, so it is spliced in as it is.
-	const [row] = await readQuery<{ fc: string | null }>(
+	const [row] = await readQuery<{ fc: string | null; print: string }>(
 		`SET STATEMENT group_concat_max_len = 1073741824 FOR
 		 SELECT GROUP_CONCAT(CONCAT(
 		          '{"type":"Feature","id":', b.id, ',"geometry":',
@@ -85,15 +113,25 @@ export async function mapBlocks(
 		          ',"properties":', JSON_OBJECT('name', b.name, 'farm', f.name, 'crop', c.code, 'pest', p.code,
 		            'areaHa', b.area_ha, 'level', ${level}, 'lastVisitOn', b.last_visit_on,
 		            'drawn', ${DRAWN} ${extra}), '}')
-		          ORDER BY b.id SEPARATOR ',') AS fc
-		   FROM blocks b
-		   JOIN farms f ON f.id = b.farm_id
-		   JOIN crops c ON c.id = b.crop_id
-		   JOIN pests p ON p.id = b.pest_id
-		  WHERE ${where.join(' AND ')}`,
+		          ORDER BY b.id SEPARATOR ',') AS fc, ${PRINT} AS print
+		   ${BLOCK_JOINS}
+		  WHERE ${w.sql}`,
 		args
 	);
-	return `{"type":"FeatureCollection","features":[${row?.fc ?? ''}]}`;
+	return {
+		body: `{"type":"FeatureCollection","features":[${row?.fc ?? ''}]}`,
+		print: String(row?.print ?? '')
+	};
+}
+
+/** The fingerprint alone (see PRINT): one light query over the same rows. */
+export async function mapPrint(scope: MapScope, q: BlockQuery): Promise<string> {
+	const w = blockWhere(scope, q);
+	const [row] = await readQuery<{ print: string }>(
+		`SELECT ${PRINT} AS print ${BLOCK_JOINS} WHERE ${w.sql}`,
+		w.args
+	);
+	return String(row?.print ?? '');
 }
 
 export interface MapTrapRow {

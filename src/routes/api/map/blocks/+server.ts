@@ -2,7 +2,7 @@ import { json } from '@sveltejs/kit';
 import { blocksQuery, parseQuery } from '$lib/map/params';
 import { requireRole } from '$lib/server/guard';
 import { mapScopeOf } from '$lib/server/map-scope';
-import { mapBlocks } from '$lib/server/queries/map';
+import { cachedMapBlocks } from '$lib/server/map-cache';
 import type { RequestHandler } from './$types';
 
 /** Blocks as GeoJSON for the map: ?bbox=minLon,minLat,maxLon,maxLat&crop=&pest=&on=YYYY-MM-DD. */
@@ -11,7 +11,7 @@ export const GET: RequestHandler = async (event) => {
 	const q = parseQuery(blocksQuery, event.url.searchParams);
 	if (!q.ok) return json(q.body, { status: 400 });
 	const t0 = performance.now();
-	const body = await mapBlocks(mapScopeOf(user), q.data);
+	const { body } = await cachedMapBlocks(mapScopeOf(user), q.data);
 	return new Response(body, {
 		headers: {
 			'content-type': 'application/geo+json',
