@@ -70,18 +70,24 @@ const BLOCK_JOINS = `FROM blocks b
 		   JOIN crops c ON c.id = b.crop_id
 		   JOIN pests p ON p.id = b.pest_id`;
 
-// Everything the current-level list (not `detail`, not `on`) is made of, per block.
-const PRINT_ROW = `CONCAT_WS('|', b.id, IFNULL(b.name, '~'), IFNULL(f.name, '~'), c.code, p.code,
-		IFNULL(b.area_ha, '~'), IFNULL(b.current_level, '~'), IFNULL(b.last_visit_on, '~'),
-		IFNULL(b.centroid_lat, '~'), IFNULL(b.centroid_lon, '~'),
-		IFNULL(LENGTH(b.boundary), '~'), IFNULL(CRC32(b.boundary), '~'))`;
+// Everything the current-level list (not `detail`, not `on`) is made of, per block: the
+// boundary by its checksum (area and centroid are computed from it when it is saved), the farm,
+// crop and pest by id (their names and codes are summed up below, per organisation).
+const PRINT_ROW = `CONCAT_WS('|', b.id, b.name, b.farm_id, b.crop_id, b.pest_id,
+		IFNULL(b.current_level, '~'), IFNULL(b.last_visit_on, '~'), b.updated_at,
+		IFNULL(CRC32(b.boundary), '~'))`;
 /**
- * A fingerprint of the blocks a current-level list holds: their number and two independent
- * checksums (CRC-32 and CRC-32C) of every field the list shows, XORed over the blocks. Any
- * change to a shown field, or a block entering or leaving the scope, changes it.
+ * A fingerprint of what a current-level list shows: the number of blocks, a CRC-32 of every
+ * shown field XORed over them, and the same over the organisation's farm names and the crop
+ * and pest codes. A change to any of them, or a block entering or leaving the scope, changes it
+ * (but for a 1 in 2^32 coincidence of checksums). Cheap: no JSON, no joins beyond the scope's.
+ * Its one placeholder is the organisation's id.
  */
 const PRINT = `CONCAT(COUNT(*), '.', COALESCE(BIT_XOR(CRC32(${PRINT_ROW})), 0), '.',
-		COALESCE(BIT_XOR(CRC32C(${PRINT_ROW})), 0))`;
+		(SELECT COALESCE(BIT_XOR(CRC32(CONCAT_WS('|', pf.id, pf.name, pf.grower_id))), 0)
+		   FROM farms pf WHERE pf.organisation_id = ?), '.',
+		(SELECT COALESCE(BIT_XOR(CRC32(CONCAT_WS('|', pc.id, pc.code))), 0) FROM crops pc), '.',
+		(SELECT COALESCE(BIT_XOR(CRC32(CONCAT_WS('|', pp.id, pp.code))), 0) FROM pests pp))`;
 
 /**
  * Blocks for the map as GeoJSON FeatureCollection text, built by MariaDB in one query: inside
@@ -103,7 +109,7 @@ export async function blocksWithPrint(scope: MapScope, q: BlockQuery, detail = f
 		? `, 'reason', ${q.on ? levelAsOf('reason') : 'b.current_reason'}, 'cropName', c.name, 'pestName', p.name`
 		: '';
 	const w = blockWhere(scope, q);
-	args.push(...w.args);
+	args.push(scope.organisationId, ...w.args); // PRINT's placeholder, then the WHERE's
 	// The stored boundary was checked when saved, so it is spliced in as it is.
 	const [row] = await readQuery<{ fc: string | null; print: string }>(
 		`SET STATEMENT group_concat_max_len = 1073741824 FOR
@@ -124,12 +130,17 @@ export async function blocksWithPrint(scope: MapScope, q: BlockQuery, detail = f
 	};
 }
 
-/** The fingerprint alone (see PRINT): one light query over the same rows. */
+/** The fingerprint alone (see PRINT): one light query, joining only what the scope needs. */
 export async function mapPrint(scope: MapScope, q: BlockQuery): Promise<string> {
 	const w = blockWhere(scope, q);
+	const joins = [
+		scope.growerId != null ? 'JOIN farms f ON f.id = b.farm_id' : '',
+		q.crop ? 'JOIN crops c ON c.id = b.crop_id' : '',
+		q.pest ? 'JOIN pests p ON p.id = b.pest_id' : ''
+	].join(' ');
 	const [row] = await readQuery<{ print: string }>(
-		`SELECT ${PRINT} AS print ${BLOCK_JOINS} WHERE ${w.sql}`,
-		w.args
+		`SELECT ${PRINT} AS print FROM blocks b ${joins} WHERE ${w.sql}`,
+		[scope.organisationId, ...w.args]
 	);
 	return String(row?.print ?? '');
 }
