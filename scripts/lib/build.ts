@@ -29,6 +29,15 @@ export async function ensureBuild(slot?: string): Promise<string> {
 	const inputs = Math.max(...INPUTS.map((p) => newest(join(root, p))));
 	if (existsSync(stamp) && statSync(stamp).mtimeMs > inputs) return out;
 	console.log('• Building the app');
+	// tsconfig.json extends the default output's tsconfig, which a slot's build does not write;
+	// on a fresh checkout that has not run `svelte-kit sync` yet, write it first.
+	if (!existsSync(join(root, '.svelte-kit/tsconfig.json'))) {
+		const synced = await runCommand(join(root, 'node_modules/.bin/svelte-kit'), ['sync'], {
+			cwd: root,
+			env: { ...process.env, CORNICLE_SLOT: '' }
+		});
+		if (synced !== 0) throw new Error('svelte-kit sync failed');
+	}
 	const env = { ...process.env, ...(slot ? { CORNICLE_SLOT: slot } : {}) };
 	const code = await runCommand(
 		join(root, 'node_modules/.bin/vite'),
