@@ -14,25 +14,39 @@ import {
 import { ROLES, type Role } from '$lib/roles';
 import { env } from '$env/dynamic/private';
 import { env as publicEnv } from '$env/dynamic/public';
-import { startAlertsInApp } from '$lib/server/alerts/inApp';
+import { startAlertsInApp, stopAlertsInApp } from '$lib/server/alerts/inApp';
 import { originCheck } from '$lib/server/csrf';
-import { db } from '$lib/server/db';
+import { SessionCache, sessionCookieValue } from '$lib/server/session-cache';
+import { closeDatabases, db } from '$lib/server/db';
 
 if (!building) assertSafeForProduction();
 
+const sessions = new SessionCache<SessionUser>();
+
+function sessionUser(u: Partial<SessionUser> | undefined): SessionUser | null {
+	return u?.id && u.role && ROLES.includes(u.role as Role) && u.organisationId
+		? {
+				id: Number(u.id),
+				email: u.email ?? '',
+				name: u.name ?? '',
+				role: u.role as Role,
+				organisationId: Number(u.organisationId)
+			}
+		: null;
+}
+
 const loadUser: Handle = async ({ event, resolve }) => {
+	const token = sessionCookieValue(event.cookies);
+	const kept = token === null ? undefined : sessions.get(token);
+	if (kept) {
+		event.locals.user = kept;
+		return resolve(event);
+	}
 	const session = await event.locals.auth();
-	const u = session?.user as Partial<SessionUser> | undefined;
-	event.locals.user =
-		u?.id && u.role && ROLES.includes(u.role as Role) && u.organisationId
-			? {
-					id: Number(u.id),
-					email: u.email ?? '',
-					name: u.name ?? '',
-					role: u.role as Role,
-					organisationId: Number(u.organisationId)
-				}
-			: null;
+	event.locals.user = sessionUser(session?.user as Partial<SessionUser> | undefined);
+	if (token !== null && event.locals.user && session?.expires) {
+		sessions.set(token, event.locals.user, Date.parse(session.expires));
+	}
 	return resolve(event);
 };
 
@@ -79,5 +93,12 @@ export const handleError: HandleServerError = ({ error, event, status, message }
 // own workers); more can run beside it (src/lib/server/alerts/cli.ts).
 export const init: ServerInit = () => {
 	// PUBLIC_BASE_URL is a public variable, so SvelteKit keeps it out of the private env.
-	if (!building) startAlertsInApp({ ...env, ...publicEnv }, db);
+	if (building) return;
+	startAlertsInApp({ ...env, ...publicEnv }, db);
+	// adapter-node stops taking requests on SIGTERM or SIGINT, lets open ones finish and then
+	// emits this; the worker finishes its send and the pools close, so the process exits.
+	process.once('sveltekit:shutdown', async () => {
+		await stopAlertsInApp();
+		await closeDatabases();
+	});
 };

@@ -1,3 +1,4 @@
+import { existsSync } from 'node:fs';
 import { join } from 'node:path';
 import { runCommand } from '../lib/procs';
 import { profileEnv, root, type Profile } from '../lib/profile';
@@ -15,13 +16,16 @@ export const BENCHES = [
 /**
  * `npm run bench`: starts the fakes and the built app on the bench database, then runs each
  * benchmark script with BENCH_APP_URL and DATABASE_URL set. `npm run bench -- engine` runs the
- * scripts whose path contains "engine".
+ * scripts whose path contains "engine"; `npm run bench -- path/to/script.ts` runs that script.
  */
 export async function runBench(p: Profile, args: string[]): Promise<number> {
 	const tsx = join(root, 'node_modules/.bin/tsx');
 	const env = await startServices(p, { quiet: true });
 	let failed = 0;
-	for (const script of BENCHES.filter((s) => !args.length || args.some((a) => s.includes(a)))) {
+	// An argument that is a script's path runs that script (trying out a measurement).
+	const own = args.filter((a) => a.endsWith('.ts') && existsSync(join(root, a)));
+	const listed = BENCHES.filter((s) => !args.length || args.some((a) => s.includes(a)));
+	for (const script of [...new Set([...listed, ...own])]) {
 		console.log(`\n• ${script}`);
 		const code = await runCommand(tsx, [script], {
 			cwd: root,

@@ -39,7 +39,9 @@ export async function startServices(p: Profile, opts: { quiet?: boolean } = {}) 
 		startProcess('sms', tsx, ['mocks/sms/server.ts'], { cwd: root, env, quiet: opts.quiet });
 	}
 	const out = await ensureBuild(p.slot);
-	startProcess('app', process.execPath, [join(out, 'index.js')], {
+	// APP_NODE_ARGS (e.g. "--cpu-prof --cpu-prof-dir=.data/prof") goes to the app's node only.
+	const nodeArgs = (process.env.APP_NODE_ARGS ?? '').split(' ').filter(Boolean);
+	startProcess('app', process.execPath, [...nodeArgs, join(out, 'index.js')], {
 		cwd: root,
 		env,
 		quiet: opts.quiet

@@ -17,8 +17,12 @@ export function startAlertsInApp(
 	if (env.ALERTS_WORKER === 'off' || worker) return null;
 	worker = new AlertWorker({ sequelize: sequelize(), settings, log: (l) => console.error(l) });
 	worker.start();
-	const stop = () => void worker?.stop();
-	process.once('SIGTERM', stop);
-	process.once('SIGINT', stop);
 	return worker;
+}
+
+/** Stops this process's outbox worker, letting a send in progress finish and record itself. */
+export async function stopAlertsInApp() {
+	const w = worker;
+	worker = null;
+	await w?.stop();
 }

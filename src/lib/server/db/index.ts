@@ -117,3 +117,11 @@ export async function transaction<T>(fn: (t: Transaction) => Promise<T>): Promis
 		}
 	}
 }
+
+/** Closes the pools (on shutdown, after the server has stopped taking requests). */
+export async function closeDatabases() {
+	if (recheck) clearTimeout(recheck);
+	await Promise.allSettled([primary?.close(), replica?.close()]);
+	primary = null;
+	replica = undefined;
+}
