@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto';
 import { QueryTypes } from 'sequelize';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { assessBlock, type AssessBlockInput } from '../../src/lib/engine';
+import { assessBlock } from '../../src/lib/engine';
+import { replayInputs, type StoredInputs } from '../../src/lib/server/assessment-input';
 import { call } from '../helpers/app';
 import { closeTestDb, testDb } from '../helpers/db';
 
@@ -107,15 +108,22 @@ describe('concurrent visits on one block', () => {
 				'SELECT level, inputs, result FROM assessments WHERE visit_id = ?',
 				[o.visit.id]
 			);
-			const inputs = parsed<AssessBlockInput>(a.inputs);
-			// Under the block's row lock, visits commit in id order: each sees all with a smaller id.
-			const expected = all.filter((v) => v.id <= o.visit.id && v.visitedOn <= inputs.asOf);
-			expect(inputs.visits.map((v) => v.id)).toEqual(expected.map((v) => v.id));
+			const stored = parsed<StoredInputs>(a.inputs);
+			// Stored by reference: the visits by id, not the season's counts again.
+			expect(stored).not.toHaveProperty('visits');
+			// Under the block's row lock, visits commit in id order: each sees all with a smaller id
+			// (also when several arrive together and are written in one batch).
+			const expected = all.filter((v) => v.id <= o.visit.id && v.visitedOn <= stored.asOf);
+			expect(stored.visitIds).toEqual(expected.map((v) => v.id));
+			const inputs = await replayInputs(stored);
 			const last = inputs.visits[inputs.visits.length - 1];
 			expect(last.units).toEqual(
 				o.visit.counts.map((c: { aphids: number }) => ({ aphids: c.aphids }))
 			);
-			expect(parsed(a.result)).toEqual(JSON.parse(JSON.stringify(assessBlock(inputs))));
+			// The stored result is the engine's answer on those inputs, less its per-visit series.
+			const { perVisit, ...again } = JSON.parse(JSON.stringify(assessBlock(inputs)));
+			expect(parsed(a.result)).toEqual(again);
+			expect(perVisit).toHaveLength(inputs.visits.length);
 			expect(a.level).toBe(o.assessment.level);
 		}
 		const newest = out.reduce((x, y) => (y.visit.id > x.visit.id ? y : x));
@@ -124,5 +132,132 @@ describe('concurrent visits on one block', () => {
 			[blockId]
 		);
 		expect(block.level).toBe(newest.assessment.level);
+	});
+
+	it('refuses only the visit at fault when visits arrive together', async () => {
+		const body = (i: number, extra: Record<string, unknown> = {}) => ({
+			clientKey: key(),
+			blockId,
+			visitedOn: today(),
+			sampleUnit: 'plant',
+			mode: 'count',
+			counts: [{ stop: 1, unit: 1, aphids: i }],
+			...extra
+		});
+		const sent = [
+			...Array.from({ length: 8 }, (_, i) => body(i)),
+			body(90, { photoIds: [2_000_000_000] }),
+			body(91, { blockId: 2_000_000_000 }),
+			body(92, { sampleUnit: 'no-such-unit' })
+		];
+		const answers = await Promise.all(
+			sent.map((json) => call('/api/visits', { as: 'scout', json }))
+		);
+		const statuses = answers.map((r) => r.status);
+		expect(statuses.slice(0, 8)).toEqual(Array(8).fill(201));
+		expect(statuses.slice(8)).toEqual([400, 404, 400]);
+		expect((await answers[8].json()).issues[0].path).toBe('photoIds');
+		expect((await answers[10].json()).issues[0].path).toBe('sampleUnit');
+		const keys = sent.map((b) => b.clientKey);
+		const [{ n }] = await rows<{ n: number }>(
+			'SELECT COUNT(*) AS n FROM visits WHERE client_key IN (?)',
+			[keys]
+		);
+		expect(Number(n)).toBe(8);
+	});
+
+	it('stores a visit sent twice at once only once (the second answer is the replay)', async () => {
+		const json = {
+			clientKey: key(),
+			blockId,
+			visitedOn: today(),
+			sampleUnit: 'plant',
+			mode: 'count',
+			counts: [{ stop: 1, unit: 1, aphids: 3 }]
+		};
+		const answers = await Promise.all(
+			[1, 2, 3].map(() => call('/api/visits', { as: 'scout', json }))
+		);
+		expect(answers.map((r) => r.status).sort()).toEqual([200, 200, 201]);
+		const ids = new Set(await Promise.all(answers.map(async (r) => (await r.json()).visit.id)));
+		expect(ids.size).toBe(1);
+		const [{ n }] = await rows<{ n: number }>(
+			'SELECT COUNT(*) AS n FROM visits WHERE client_key = ?',
+			[json.clientKey]
+		);
+		expect(Number(n)).toBe(1);
+	});
+});
+
+describe('the batch’s kept seasons', () => {
+	// The batch keeps each block's visits between batches; what another instance, the CSV
+	// import or anyone else writes straight into MariaDB must still be in the next assessment.
+	const post = (aphids: number) =>
+		call('/api/visits', {
+			as: 'scout',
+			json: {
+				clientKey: key(),
+				blockId,
+				visitedOn: today(),
+				sampleUnit: 'plant',
+				mode: 'count',
+				counts: [{ stop: 1, unit: 1, aphids }]
+			}
+		});
+	const storedIds = async (visitId: number) => {
+		const [a] = await rows<{ inputs: unknown }>(
+			'SELECT inputs FROM assessments WHERE visit_id = ?',
+			[visitId]
+		);
+		return parsed<StoredInputs>(a.inputs).visitIds;
+	};
+	const allIds = async () =>
+		(
+			await rows<{ id: number }>(
+				`SELECT id FROM visits WHERE block_id = ? AND visited_on <= ? ORDER BY visited_on, id`,
+				[blockId, today()]
+			)
+		).map((r) => r.id);
+
+	it('sees a visit written behind the app’s back, and one removed', async () => {
+		expect((await post(4)).status).toBe(201);
+		// Another writer adds a visit (a copy of the newest, with its counts) straight in MariaDB.
+		const [newest] = await rows<{ id: number }>(
+			'SELECT id FROM visits WHERE block_id = ? ORDER BY id DESC LIMIT 1',
+			[blockId]
+		);
+		const [copy] = await testDb().query(
+			`INSERT INTO visits (block_id, scout_id, pest_id, sample_unit_id, client_key, visited_on,
+			   position_source, outside_boundary, mode, mummies, ladybeetles, lacewings, hoverflies,
+			   other_predators, created_at, updated_at)
+			 SELECT block_id, scout_id, pest_id, sample_unit_id, ?, visited_on, 'none', 0, mode,
+			   0, 0, 0, 0, 0, NOW(), NOW() FROM visits WHERE id = ?`,
+			{ replacements: [key(), newest.id] }
+		);
+		await testDb().query(
+			`INSERT INTO visit_counts (visit_id, stop_no, unit_no, aphids, alate, infested)
+			 SELECT ?, stop_no, unit_no, aphids, alate, infested FROM visit_counts WHERE visit_id = ?`,
+			{ replacements: [copy, newest.id] }
+		);
+		const res = await post(5);
+		expect(res.status).toBe(201);
+		const second = await res.json();
+		expect(await storedIds(second.visit.id)).toEqual(await allIds());
+		// And one disappears (no screen removes visits; a database clean-up might).
+		const [gone] = await rows<{ id: number }>(
+			`SELECT id FROM visits WHERE block_id = ? AND client_key IS NOT NULL
+			 ORDER BY id DESC LIMIT 1 OFFSET 1`,
+			[blockId]
+		);
+		await testDb().query('DELETE FROM assessments WHERE visit_id = ?', {
+			replacements: [gone.id]
+		});
+		await testDb().query('DELETE FROM visits WHERE id = ?', { replacements: [gone.id] });
+		const res3 = await post(6);
+		expect(res3.status).toBe(201);
+		const third = await res3.json();
+		const ids = await storedIds(third.visit.id);
+		expect(ids).not.toContain(gone.id);
+		expect(ids).toEqual(await allIds());
 	});
 });

@@ -1,7 +1,12 @@
 import { QueryTypes, type Transaction } from 'sequelize';
 import { error } from '@sveltejs/kit';
-import { assessBlock, EngineInputError, type Assessment as EngineAssessment } from '../engine';
-import { engineInput } from './assessment-input';
+import {
+	assessBlock,
+	EngineInputError,
+	type AssessBlockInput,
+	type Assessment as EngineAssessment
+} from '../engine';
+import { engineInput, storedInputs } from './assessment-input';
 import { Block } from './db/models';
 import { levelChanged } from './events';
 
@@ -34,7 +39,7 @@ export interface ReassessOptions {
 	visitId?: number;
 }
 
-export { engineInput, rulesFor } from './assessment-input';
+export { engineInput, replayInputs, rulesFor } from './assessment-input';
 
 const iso = (d: Date) => d.toISOString().slice(0, 10);
 
@@ -52,8 +57,12 @@ export async function reassessBlock(
 	const today = iso(opts.today ?? new Date());
 	const t = opts.transaction;
 	const { block, input } = await engineInput(blockId, today, t);
-	const rows: { visitId: number | null; asOf: string; result: EngineAssessment; inputs: object }[] =
-		[];
+	const rows: {
+		visitId: number | null;
+		asOf: string;
+		result: EngineAssessment;
+		inputs: AssessBlockInput;
+	}[] = [];
 	if (opts.history) {
 		for (let i = 0; i < input.visits.length; i++) {
 			const sub = { ...input, asOf: input.visits[i].date, visits: input.visits.slice(0, i + 1) };
@@ -70,43 +79,96 @@ export async function reassessBlock(
 		rows.push({ visitId: opts.visitId ?? null, asOf: today, result: latest, inputs: input });
 	}
 	const now = new Date();
-	const sequelize = Block.sequelize!;
-	// Plain statements with bound parameters: the model layer deep-clones and escapes the inputs
-	// JSON character by character, which cost more than the engine run for a season of visits.
-	const values = rows.map(
-		(r, i) =>
-			`($${7 * i + 1}, $${7 * i + 2}, $${7 * i + 3}, $${7 * i + 4}, $${7 * i + 5}, $${7 * i + 6}, $${7 * i + 7})`
-	);
-	await sequelize.query(
-		`INSERT INTO assessments (block_id, visit_id, computed_at, level, reason, inputs, result)
-		 VALUES ${values.join(', ')}`,
-		{
-			bind: rows.flatMap((r) => [
-				blockId,
-				r.visitId,
-				sqlTime(opts.history ? new Date(`${r.asOf}T12:00:00Z`) : now),
-				r.result.level,
-				r.result.reason.slice(0, 300),
-				JSON.stringify(r.inputs),
-				JSON.stringify(r.result)
-			]),
-			type: QueryTypes.INSERT,
-			transaction: t
-		}
+	await storeAssessments(
+		rows.map((r) => ({
+			blockId,
+			visitId: r.visitId,
+			computedAt: opts.history ? new Date(`${r.asOf}T12:00:00Z`) : now,
+			result: r.result,
+			inputs: r.inputs
+		})),
+		t
 	);
 	const previous = block.currentLevel;
 	const last = input.visits[input.visits.length - 1];
-	await sequelize.query(
-		`UPDATE blocks SET current_level = $1, current_reason = $2, current_level_at = $3,
-		   last_visit_on = $4, updated_at = $3 WHERE id = $5`,
-		{
-			bind: [latest.level, latest.reason.slice(0, 300), sqlTime(now), last?.date ?? null, blockId],
-			type: QueryTypes.UPDATE,
-			transaction: t
-		}
-	);
+	await setBlockLevels([{ blockId, result: latest, lastVisitOn: last?.date ?? null, at: now }], t);
 	if (opts.notify !== false && previous !== latest.level) {
 		await levelChanged({ block, from: previous ?? null, to: latest, transaction: t });
 	}
 	return latest;
+}
+
+export interface AssessmentRow {
+	blockId: number;
+	visitId: number | null;
+	computedAt: Date;
+	result: EngineAssessment;
+	inputs: AssessBlockInput;
+}
+
+/**
+ * An assessment's result as stored: the engine's answer without its per-visit series, which
+ * replaying the stored inputs gives again (`replayInputs`); the series grows with every visit
+ * of the season and would make each row repeat the ones before it.
+ */
+export type StoredResult = Omit<EngineAssessment, 'perVisit'>;
+
+export function storedResult(result: EngineAssessment): StoredResult {
+	const { perVisit: _series, ...rest } = result;
+	return rest;
+}
+
+/** Stores assessments with their inputs (visits by id), in one statement. */
+export async function storeAssessments(rows: AssessmentRow[], transaction?: Transaction) {
+	if (!rows.length) return;
+	// Plain statements with bound parameters: the model layer deep-clones and escapes the inputs
+	// JSON character by character, which cost more than the engine run for a season of visits.
+	const values = rows.map(
+		(_, i) =>
+			`($${7 * i + 1}, $${7 * i + 2}, $${7 * i + 3}, $${7 * i + 4}, $${7 * i + 5}, $${7 * i + 6}, $${7 * i + 7})`
+	);
+	await Block.sequelize!.query(
+		`INSERT INTO assessments (block_id, visit_id, computed_at, level, reason, inputs, result)
+		 VALUES ${values.join(', ')}`,
+		{
+			bind: rows.flatMap((r) => [
+				r.blockId,
+				r.visitId,
+				sqlTime(r.computedAt),
+				r.result.level,
+				r.result.reason.slice(0, 300),
+				JSON.stringify(storedInputs(r.inputs)),
+				JSON.stringify(storedResult(r.result))
+			]),
+			type: QueryTypes.INSERT,
+			transaction
+		}
+	);
+}
+
+export interface BlockLevel {
+	blockId: number;
+	result: EngineAssessment;
+	lastVisitOn: string | null;
+	at: Date;
+}
+
+/** Sets blocks' current level, reason and last visit day, in one statement. */
+export async function setBlockLevels(levels: BlockLevel[], transaction?: Transaction) {
+	if (!levels.length) return;
+	const bind: unknown[] = [];
+	const param = (v: unknown) => `$${bind.push(v)}`;
+	const column = (f: (l: BlockLevel) => unknown) =>
+		`CASE id ${levels.map((l) => `WHEN ${param(l.blockId)} THEN ${param(f(l))}`).join(' ')} END`;
+	const level = column((l) => l.result.level);
+	const reason = column((l) => l.result.reason.slice(0, 300));
+	const at = column((l) => sqlTime(l.at));
+	const lastVisit = column((l) => l.lastVisitOn);
+	const updated = column((l) => sqlTime(l.at));
+	await Block.sequelize!.query(
+		`UPDATE blocks SET current_level = ${level}, current_reason = ${reason},
+		   current_level_at = ${at}, last_visit_on = ${lastVisit}, updated_at = ${updated}
+		 WHERE id IN (${levels.map((l) => param(l.blockId)).join(', ')})`,
+		{ bind, type: QueryTypes.UPDATE, transaction }
+	);
 }

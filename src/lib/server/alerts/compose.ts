@@ -104,7 +104,8 @@ export interface RecommendationMessageInput {
 	rescoutBy: string | null;
 	warnings: string[];
 	treat: TreatInfo | null;
-	assessment: Assessment | null;
+	/** The block's latest stored assessment (stored without its per-visit series). */
+	assessment: Omit<Assessment, 'perVisit'> | null;
 	link: string;
 	settingsUrl: string;
 	/** Replies to the SMS acknowledge it. */

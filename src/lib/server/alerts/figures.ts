@@ -3,7 +3,7 @@ import { fmtNum, fmtPct, trendPhrase, type Assessment } from '../../engine';
 export type Figure = [label: string, value: string];
 
 /** The numbers behind a level, in words, for e-mail; each line only when the engine has it. */
-export function assessmentFigures(a: Assessment): Figure[] {
+export function assessmentFigures(a: Omit<Assessment, 'perVisit'>): Figure[] {
 	const out: Figure[] = [];
 	const l = a.latest;
 	const unit = l?.sampleUnit || a.rule?.sampleUnit || 'unit';

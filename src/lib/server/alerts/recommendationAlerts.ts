@@ -1,5 +1,5 @@
 import type { Transaction } from 'sequelize';
-import type { Assessment as EngineAssessment } from '../../engine';
+import type { StoredResult } from '../assessments';
 import { Assessment, Block, Farm, Organisation, Product, Recommendation, User } from '../db/models';
 import { recommendationMessage } from './compose';
 import { treatInfo } from './levelAlerts';
@@ -52,7 +52,7 @@ export async function queueRecommendationAlerts(
 			rescoutBy: rec.rescoutBy ?? null,
 			warnings: (rec.warnings ?? []).map((w) => w.message),
 			treat: rec.decision === 'treat' ? treatInfo(rec) : null,
-			assessment: (latest?.result as EngineAssessment | undefined) ?? null,
+			assessment: (latest?.result as StoredResult | undefined) ?? null,
 			link: blockLink(s, r.role, block.id),
 			settingsUrl: settingsLink(s),
 			smsAck: true

@@ -155,7 +155,7 @@ async function replay(user: SessionUser, input: VisitCreate): Promise<CreateResu
 	});
 }
 
-async function replayed(
+export async function replayed(
 	user: SessionUser,
 	input: VisitCreate,
 	earlier: Pick<FilingRow, 'earlierId' | 'earlierScout' | 'earlierBlock'>
@@ -170,7 +170,7 @@ async function replayed(
 	return { ok: true, created: false, visit: toApi(v!), assessment: null };
 }
 
-interface FilingRow {
+export interface FilingRow {
 	earlierId: number | null;
 	earlierScout: number | null;
 	earlierBlock: number | null;
@@ -236,22 +236,36 @@ const VISIT_COLUMNS = {
 	created_at: 'createdAt',
 	updated_at: 'updatedAt'
 } as const;
-const INSERT_VISIT = `INSERT INTO visits (${Object.keys(VISIT_COLUMNS).join(', ')})
-	VALUES (${Object.keys(VISIT_COLUMNS)
-		.map((_, i) => `$${i + 1}`)
-		.join(', ')})`;
+const INSERT_VISIT = `INSERT INTO visits (${Object.keys(VISIT_COLUMNS).join(', ')})`;
 
-/**
- * Files one visit: checks the block, stores the visit and its counts, links its photos and
- * reassesses the block, all in one transaction. A repeated clientKey returns the stored visit.
- */
-export async function createVisit(
+/** A visit checked against its block and turned into the rows to write. */
+export interface PreparedVisit {
+	blockId: number;
+	row: Omit<InferVisit, 'id' | 'createdAt' | 'updatedAt'>;
+	counts: {
+		stopNo: number;
+		unitNo: number;
+		aphids: number | null;
+		alate: number | null;
+		infested: boolean;
+	}[];
+	/** The day the block is assessed as of: today, or the visit's day when a phone is ahead. */
+	asOf: Date;
+}
+
+type InferVisit = { [K in (typeof VISIT_COLUMNS)[keyof typeof VISIT_COLUMNS]]: unknown } & {
+	id: number;
+};
+
+type Refused = Extract<CreateResult, { ok: false }>;
+
+/** The checks createVisit makes before it writes (access, sample unit, day), and the rows. */
+export async function prepareVisit(
 	user: SessionUser,
 	input: VisitCreate,
+	facts: FilingRow,
 	channel: 'phone' | 'api' | 'csv'
-): Promise<CreateResult> {
-	const facts = await filingFacts(user, input);
-	if (facts.earlierId !== null) return replayed(user, input, facts);
+): Promise<Refused | { ok: true; prepared: PreparedVisit }> {
 	const access = await blockAccess(
 		user,
 		facts.blockId === null
@@ -319,95 +333,154 @@ export async function createVisit(
 		notes: input.notes?.trim() || null,
 		entryChannel: channel
 	};
+	const asOf = input.visitedOn > today() ? new Date(`${input.visitedOn}T12:00:00Z`) : new Date();
+	return { ok: true, prepared: { blockId, row, counts, asOf } };
+}
+
+/**
+ * Writes prepared visits with their counts and links their photos, inside the caller's
+ * transaction: the blocks' rows are locked first (in id order, so writers queue instead of
+ * deadlocking on the foreign-key check and the level update), then one INSERT for all the
+ * visits and one for all their counts. Answers the new ids in order and the stored time.
+ */
+export async function writeVisits(
+	visits: { user: SessionUser; input: VisitCreate; prepared: PreparedVisit }[],
+	transaction: Transaction
+): Promise<{ ids: number[]; now: Date }> {
+	const sequelize = Visit.sequelize!;
+	const blockIds = [...new Set(visits.map((v) => v.prepared.blockId))].sort((a, b) => a - b);
+	await sequelize.query(`SELECT id FROM blocks WHERE id IN (?) ORDER BY id FOR UPDATE`, {
+		replacements: [blockIds],
+		type: QueryTypes.SELECT,
+		transaction
+	});
+	// DATETIME columns keep whole seconds; the answer shows what a re-read would.
+	const now = new Date(Math.floor(Date.now() / 1000) * 1000);
+	const bind: unknown[] = [];
+	const param = (v: unknown) => `$${bind.push(v instanceof Date ? sqlTime(v) : v)}`;
+	const tuples = visits.map(({ prepared }) => {
+		const written = { ...prepared.row, createdAt: now, updatedAt: now } as Record<string, unknown>;
+		return `(${Object.values(VISIT_COLUMNS)
+			.map((k) => param(written[k]))
+			.join(', ')})`;
+	});
+	// RETURNING gives the new ids in the order of the rows (MariaDB 10.5 and later).
+	const inserted = await sequelize.query<{ id: number }>(
+		`${INSERT_VISIT} VALUES ${tuples.join(', ')} RETURNING id`,
+		{ bind, type: QueryTypes.SELECT, transaction }
+	);
+	const ids = inserted.map((r) => Number(r.id));
+	// One multi-row INSERT of plain rows: model instances for 30 counts cost more than the write.
+	const countBind: unknown[] = [];
+	const countRows: string[] = [];
+	visits.forEach(({ prepared }, k) => {
+		for (const c of prepared.counts) {
+			const n = countBind.push(ids[k], c.stopNo, c.unitNo, c.aphids, c.alate, c.infested);
+			countRows.push(`($${n - 5}, $${n - 4}, $${n - 3}, $${n - 2}, $${n - 1}, $${n})`);
+		}
+	});
+	if (countRows.length) {
+		await sequelize.query(
+			`INSERT INTO visit_counts (visit_id, stop_no, unit_no, aphids, alate, infested) VALUES ${countRows.join(', ')}`,
+			{ bind: countBind, type: QueryTypes.INSERT, transaction }
+		);
+	}
+	for (const [k, { user, input, prepared }] of visits.entries()) {
+		if (!input.photoIds.length) continue;
+		const [linked] = await Photo.update(
+			{ visitId: ids[k] },
+			{
+				where: {
+					id: { [Op.in]: input.photoIds },
+					uploadedBy: user.id,
+					blockId: prepared.blockId,
+					visitId: null
+				},
+				transaction
+			}
+		);
+		if (linked !== new Set(input.photoIds).size)
+			throw new BadInput(
+				'photoIds',
+				'a photo is unknown, not yours, of another block or already used'
+			);
+	}
+	return { ids, now };
+}
+
+/**
+ * The answer for a stored visit, built from what was written as GET /api/visits/:id shows it
+ * (compared in tests/http/visits.spec.ts), saving a query with four joins per visit.
+ */
+export function filed(
+	user: SessionUser,
+	input: VisitCreate,
+	prepared: PreparedVisit,
+	id: number,
+	now: Date,
+	assessment: EngineAssessment
+): CreateResult {
+	const row = prepared.row;
+	const started = row.startedAt as Date | null;
+	const stored = {
+		...row,
+		id,
+		startedAt: started && new Date(Math.floor(started.getTime() / 1000) * 1000),
+		createdAt: now,
+		updatedAt: now,
+		counts: prepared.counts,
+		photos: [...new Set(input.photoIds)].sort((a, b) => a - b).map((id) => ({ id })),
+		scout: { id: user.id, name: user.name },
+		sampleUnit: { code: input.sampleUnit }
+	} as unknown as VisitRow;
+	return { ok: true, created: true, visit: toApi(stored), assessment: assessmentOut(assessment) };
+}
+
+/** A refusal for input the write or the engine turned down (it names the field). */
+export function refusedInput(e: unknown): Refused | null {
+	if (e instanceof BadInput || e instanceof EngineInputError) {
+		const path = e instanceof BadInput ? e.path : e.field;
+		const message = e instanceof BadInput ? `${path}: ${e.message}` : e.message;
+		return { ok: false, status: 400, message, issues: [{ path, message }] };
+	}
+	return null;
+}
+
+/**
+ * Files one visit: checks the block, stores the visit and its counts, links its photos and
+ * reassesses the block, all in one transaction. A repeated clientKey returns the stored visit.
+ */
+export async function createVisit(
+	user: SessionUser,
+	input: VisitCreate,
+	channel: 'phone' | 'api' | 'csv'
+): Promise<CreateResult> {
+	const facts = await filingFacts(user, input);
+	if (facts.earlierId !== null) return replayed(user, input, facts);
+	const checked = await prepareVisit(user, input, facts, channel);
+	if (!checked.ok) return checked;
+	const { prepared } = checked;
 	try {
 		const out = await transaction(async (transaction) => {
-			const sequelize = Visit.sequelize!;
-			// Writers to one block take its row lock first, so concurrent visits queue instead of
-			// deadlocking on the foreign-key check and the block's level update.
-			await sequelize.query('SELECT id FROM blocks WHERE id = $1 FOR UPDATE', {
-				bind: [blockId],
-				type: QueryTypes.SELECT,
-				transaction
+			const {
+				ids: [visitId],
+				now
+			} = await writeVisits([{ user, input, prepared }], transaction);
+			const assessment = await reassessBlock(prepared.blockId, {
+				transaction,
+				visitId,
+				today: prepared.asOf
 			});
-			// DATETIME columns keep whole seconds; the answer below shows what a re-read would.
-			const now = new Date(Math.floor(Date.now() / 1000) * 1000);
-			const written = { ...row, createdAt: now, updatedAt: now };
-			const [id] = await sequelize.query(INSERT_VISIT, {
-				bind: Object.values(VISIT_COLUMNS).map((k) => {
-					const v = written[k];
-					return v instanceof Date ? sqlTime(v) : v;
-				}),
-				type: QueryTypes.INSERT,
-				transaction
-			});
-			const visitId = Number(id);
-			// One multi-row INSERT of plain rows: model instances for 30 counts cost more than the write.
-			await sequelize.query(
-				`INSERT INTO visit_counts (visit_id, stop_no, unit_no, aphids, alate, infested) VALUES ${counts
-					.map(
-						(_, i) =>
-							`($${6 * i + 1}, $${6 * i + 2}, $${6 * i + 3}, $${6 * i + 4}, $${6 * i + 5}, $${6 * i + 6})`
-					)
-					.join(', ')}`,
-				{
-					bind: counts.flatMap((c) => [visitId, c.stopNo, c.unitNo, c.aphids, c.alate, c.infested]),
-					type: QueryTypes.INSERT,
-					transaction
-				}
-			);
-			if (input.photoIds.length) {
-				const [linked] = await Photo.update(
-					{ visitId },
-					{
-						where: {
-							id: { [Op.in]: input.photoIds },
-							uploadedBy: user.id,
-							blockId,
-							visitId: null
-						},
-						transaction
-					}
-				);
-				if (linked !== new Set(input.photoIds).size)
-					throw new BadInput(
-						'photoIds',
-						'a photo is unknown, not yours, of another block or already used'
-					);
-			}
-			const asOf =
-				input.visitedOn > today() ? new Date(`${input.visitedOn}T12:00:00Z`) : new Date();
-			const assessment = await reassessBlock(blockId, { transaction, visitId, today: asOf });
 			return { visitId, now, assessment };
 		});
-		// The answer is built from what was written, as GET /api/visits/:id shows it (compared in
-		// tests/http/visits.spec.ts), saving a query with four joins per visit.
-		const stored = {
-			...row,
-			id: out.visitId,
-			startedAt: row.startedAt && new Date(Math.floor(row.startedAt.getTime() / 1000) * 1000),
-			createdAt: out.now,
-			updatedAt: out.now,
-			counts,
-			photos: [...new Set(input.photoIds)].sort((a, b) => a - b).map((id) => ({ id })),
-			scout: { id: user.id, name: user.name },
-			sampleUnit: { code: input.sampleUnit }
-		} as unknown as VisitRow;
-		return {
-			ok: true,
-			created: true,
-			visit: toApi(stored),
-			assessment: assessmentOut(out.assessment)
-		};
+		return filed(user, input, prepared, out.visitId, out.now, out.assessment);
 	} catch (e) {
 		if (e instanceof UniqueConstraintError && input.clientKey) {
 			const again2 = await replay(user, input);
 			if (again2) return again2;
 		}
-		if (e instanceof BadInput || e instanceof EngineInputError) {
-			const path = e instanceof BadInput ? e.path : e.field;
-			const message = e instanceof BadInput ? `${path}: ${e.message}` : e.message;
-			return { ok: false, status: 400, message, issues: [{ path, message }] };
-		}
+		const refused = refusedInput(e);
+		if (refused) return refused;
 		throw e;
 	}
 }
