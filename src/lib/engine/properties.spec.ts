@@ -70,6 +70,27 @@ describe('engine properties', () => {
 		);
 	});
 
+	it('never changes its input (the server hands the same visit objects to many runs)', () => {
+		const freeze = <T>(o: T): T => {
+			if (o && typeof o === 'object') {
+				for (const v of Object.values(o)) freeze(v);
+				Object.freeze(o);
+			}
+			return o;
+		};
+		fc.assert(
+			fc.property(series, (s) => {
+				const input = soybeanBlock(visitsFrom(s));
+				const copy = structuredClone(input);
+				// Modules are strict: a write to a frozen object throws.
+				const a = assessBlock(freeze(input));
+				expect(input).toEqual(copy);
+				expect(assessBlock(copy)).toEqual(a);
+			}),
+			{ numRuns: 200 }
+		);
+	});
+
 	it('more aphids on the latest visit never lower the level or the drain', () => {
 		fc.assert(
 			fc.property(series, fc.nat({ max: 500 }), fc.nat(), (s, extra, at) => {

@@ -216,7 +216,11 @@ async function seasonVisits(blockIds: number[], transaction?: Transaction) {
 		const sum = more.reduce((s, v) => s + v.id, kept.sum);
 		if (kept.n + more.length !== p.n || sum !== p.sum) again.push(blockId);
 		else {
-			const visits = [...kept.visits, ...more].sort(byDayThenId);
+			// Newer visits are nearly always of later days: appended, else sorted in.
+			const visits = [...kept.visits, ...more];
+			const prev = kept.visits[kept.visits.length - 1];
+			if (prev && more.length && byDayThenId(prev, more[0]) > 0) visits.sort(byDayThenId);
+			else if (more.length > 1) visits.sort(byDayThenId);
 			keep(blockId, { ...p, visits });
 			out.set(blockId, visits);
 		}
@@ -231,6 +235,8 @@ async function seasonVisits(blockIds: number[], transaction?: Transaction) {
 	}
 	return out;
 }
+
+type EngineVisit = AssessBlockInput['visits'][number];
 
 /** A visit as the engine takes it. */
 function engineVisit(
@@ -255,6 +261,22 @@ function engineVisit(
 			other: v.otherPredators
 		}
 	};
+}
+
+/**
+ * The engine form of a visit read before, made once per read (kept seasons hand the same
+ * rows to batch after batch, and remaking 30 counts per visit per batch was most of the
+ * garbage a batch left).
+ */
+const engineForms = new WeakMap<ReadVisit, { code: string; visit: EngineVisit }>();
+
+function engineForm(v: ReadVisit, unitCode: Map<number, string>): EngineVisit {
+	const code = unitCode.get(v.sampleUnitId) ?? '';
+	const made = engineForms.get(v);
+	if (made && made.code === code) return made.visit;
+	const visit = engineVisit(v, unitCode);
+	engineForms.set(v, { code, visit });
+	return visit;
 }
 
 /**
@@ -431,7 +453,7 @@ export async function engineInputs(
 				pricePerKg: row.pricePerKg ?? undefined,
 				rescoutDays: row.rescoutDays
 			},
-			visits: own.map((v) => engineVisit(v, unitCode)),
+			visits: own.map((v) => engineForm(v, unitCode)),
 			weather: (weatherOf.get(row.farmId) ?? []).map((w) => ({
 				date: w.date,
 				tminC: w.tminC,
