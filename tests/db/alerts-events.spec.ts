@@ -2,7 +2,7 @@
 // subscriber and channel, following each person's subscription rules.
 import { afterAll, describe, expect, it } from 'vitest';
 import { CAUTION_SMS, CAUTIONS } from '../../src/lib/cautions';
-import { levelChanged, recommendationIssued } from '../../src/lib/server/events';
+import { levelChanged, levelsChanged, recommendationIssued } from '../../src/lib/server/events';
 import {
 	AuditLog,
 	Notification,
@@ -12,7 +12,8 @@ import {
 	SmsOptOut
 } from '../../src/lib/server/db/models';
 import { alertWorld, assessmentAt, subscribe } from '../helpers/alerts';
-import { buildUser, closeTestDb, testDb } from '../helpers/db';
+import { buildBlock, buildUser, closeTestDb, testDb } from '../helpers/db';
+import { soyIds } from '../helpers/advice';
 
 afterAll(closeTestDb);
 
@@ -189,5 +190,68 @@ describe('recommendation alerts', () => {
 			actorId: w.agronomist.id
 		});
 		expect(await rowsFor(w.block.id)).toHaveLength(2);
+	});
+});
+
+describe('level changes of a batch of visits', () => {
+	it('queue, in one pass, what the changes one at a time would have queued', async () => {
+		// Two worlds alike: one gets its changes one call at a time, the other all in one call.
+		const make = async () => {
+			const w = await alertWorld();
+			const other = await buildBlock(w.farm, await soyIds(), { currentLevel: 'calm' });
+			await subscribe(w.grower, 'sms', { minLevel: 'stirring' });
+			await subscribe(w.agronomist, 'email', { minLevel: 'stirring' });
+			await subscribe(w.agronomist, 'sms', { minLevel: 'action', blockId: other.id });
+			return { ...w, other };
+		};
+		const changes = (w: Awaited<ReturnType<typeof make>>) => [
+			{ block: w.block, from: 'calm' as const, to: assessmentAt('stirring') },
+			{ block: w.other, from: 'calm' as const, to: assessmentAt('action') },
+			{
+				block: w.block,
+				from: 'stirring' as const,
+				to: { ...assessmentAt('stirring'), level: 'calm' as const }
+			}, // a fall: audit only
+			{ block: w.block, from: 'calm' as const, to: assessmentAt('stirring') }, // again: deduped
+			{ block: w.block, from: 'stirring' as const, to: assessmentAt('severe') }
+		];
+		const one = await make();
+		await testDb().transaction(async (t) => {
+			for (const c of changes(one)) await levelChanged({ ...c, transaction: t });
+		});
+		const all = await make();
+		await testDb().transaction((t) => levelsChanged(changes(all), t));
+		const shape = async (w: Awaited<ReturnType<typeof make>>) => {
+			const who = new Map([
+				[w.grower.id, 'grower'],
+				[w.agronomist.id, 'agronomist']
+			]);
+			const where = new Map([
+				[w.block.id, 'block'],
+				[w.other.id, 'other']
+			]);
+			const rows = await Notification.findAll({ where: { blockId: [w.block.id, w.other.id] } });
+			const audits = await AuditLog.count({
+				where: { action: 'level-changed', entityId: [String(w.block.id), String(w.other.id)] }
+			});
+			return {
+				audits,
+				rows: rows
+					.map((r) => `${where.get(r.blockId!)} ${who.get(r.userId)} ${r.channel} ${r.kind}`)
+					.sort()
+			};
+		};
+		const expected = await shape(one);
+		expect(expected.audits).toBe(5);
+		expect(expected.rows).toEqual([
+			'block agronomist email level-severe',
+			'block agronomist email level-stirring',
+			'block grower sms level-severe',
+			'block grower sms level-stirring',
+			'other agronomist email level-action',
+			'other agronomist sms level-action',
+			'other grower sms level-action'
+		]);
+		expect(await shape(all)).toEqual(expected);
 	});
 });

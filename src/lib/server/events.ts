@@ -1,6 +1,6 @@
 import type { Transaction } from 'sequelize';
 import type { Assessment as EngineAssessment, LevelKey } from '../engine';
-import { queueLevelAlerts } from './alerts/levelAlerts';
+import { queueLevelAlertsMany } from './alerts/levelAlerts';
 import { queueRecommendationAlerts } from './alerts/recommendationAlerts';
 import { AuditLog, type Block } from './db/models';
 
@@ -17,18 +17,24 @@ export interface LevelChange {
  * A rise queues one message per subscriber and channel (see alerts/levelAlerts.ts).
  */
 export async function levelChanged(change: LevelChange) {
-	await AuditLog.create(
-		{
-			organisationId: change.block.organisationId,
+	await levelsChanged([change], change.transaction);
+}
+
+/** `levelChanged` for several changes (a batch of visits): one audit insert, one alert pass. */
+export async function levelsChanged(changes: Omit<LevelChange, 'transaction'>[], t?: Transaction) {
+	if (!changes.length) return;
+	await AuditLog.bulkCreate(
+		changes.map((c) => ({
+			organisationId: c.block.organisationId,
 			actorId: null,
 			action: 'level-changed',
 			entity: 'block',
-			entityId: String(change.block.id),
-			details: { from: change.from, to: change.to.level, reason: change.to.reason }
-		},
-		{ transaction: change.transaction }
+			entityId: String(c.block.id),
+			details: { from: c.from, to: c.to.level, reason: c.to.reason }
+		})),
+		{ transaction: t }
 	);
-	await queueLevelAlerts(change.block, change.from, change.to, change.transaction);
+	await queueLevelAlertsMany(changes, t);
 }
 
 export interface RecommendationEvent {

@@ -4,21 +4,32 @@ import type { Assessment as EngineAssessment, LevelKey } from '../../engine';
 import { Block, Farm, Organisation, Product, Recommendation } from '../db/models';
 import { levelMessage, type TreatInfo } from './compose';
 import { blockLink, settingsLink } from './links';
-import { alertedSince, rowFor, writeRows, type OutboxRow } from './outbox';
-import { optedOut, recipientsForBlock } from './recipients';
+import { alertedSinceMany, rowFor, writeRows, type OutboxRow } from './outbox';
+import { optedOut, recipientsForBlocks } from './recipients';
 import { currentSettings } from './settings';
 
 export const rank = (l: LevelKey | null) => (l ? LEVEL_KEYS.indexOf(l) : -1);
 
 /** The block's open treat recommendation (issued or acknowledged), for its cautions. */
 export async function openTreat(blockId: number, t?: Transaction): Promise<TreatInfo | null> {
-	const rec = await Recommendation.findOne({
-		where: { blockId, decision: 'treat', status: { [Op.in]: ['issued', 'acknowledged'] } },
+	return (await openTreats([blockId], t)).get(blockId) ?? null;
+}
+
+/** `openTreat` for several blocks in one query. */
+async function openTreats(blockIds: number[], t?: Transaction) {
+	const recs = await Recommendation.findAll({
+		where: {
+			blockId: { [Op.in]: blockIds },
+			decision: 'treat',
+			status: { [Op.in]: ['issued', 'acknowledged'] }
+		},
 		include: [{ model: Product, as: 'product' }],
 		order: [['issuedAt', 'DESC']],
 		transaction: t
 	});
-	return rec ? treatInfo(rec) : null;
+	const out = new Map<number, TreatInfo>();
+	for (const rec of recs) if (!out.has(rec.blockId)) out.set(rec.blockId, treatInfo(rec));
+	return out;
 }
 
 export function treatInfo(rec: Recommendation): TreatInfo {
@@ -32,6 +43,12 @@ export function treatInfo(rec: Recommendation): TreatInfo {
 	};
 }
 
+export interface LevelRise {
+	block: Block;
+	from: LevelKey | null;
+	to: EngineAssessment;
+}
+
 /**
  * Outbox rows for a block whose level rose: one per subscriber and channel whose lowest level
  * it reaches, none for a person already alerted for this block and level within the window.
@@ -43,52 +60,89 @@ export async function queueLevelAlerts(
 	t?: Transaction,
 	now = new Date()
 ): Promise<number> {
-	if (rank(to.level) <= rank(from)) return 0;
+	return queueLevelAlertsMany([{ block, from, to }], t, now);
+}
+
+/**
+ * `queueLevelAlerts` for several changes at once (a batch of visits), in the same handful of
+ * queries as for one; changes that are not rises are passed over.
+ */
+export async function queueLevelAlertsMany(
+	changes: LevelRise[],
+	t?: Transaction,
+	now = new Date()
+): Promise<number> {
+	const rises = changes.filter((c) => rank(c.to.level) > rank(c.from));
+	if (!rises.length) return 0;
 	const s = currentSettings();
-	const [farm, org, recipients] = await Promise.all([
-		Farm.findByPk(block.farmId, { transaction: t }),
-		Organisation.findByPk(block.organisationId, { transaction: t }),
-		recipientsForBlock(block, t)
+	const blocks = [...new Map(rises.map((c) => [c.block.id, c.block])).values()];
+	const [farms, orgs, recipientsOf] = await Promise.all([
+		Farm.findAll({ where: { id: [...new Set(blocks.map((b) => b.farmId))] }, transaction: t }),
+		Organisation.findAll({
+			where: { id: [...new Set(blocks.map((b) => b.organisationId))] },
+			transaction: t
+		}),
+		recipientsForBlocks(blocks, t)
 	]);
-	const due = recipients.filter((r) => rank(to.level) >= rank(r.minLevel));
-	if (!due.length || !farm) return 0;
-	const kind = `level-${to.level}`;
+	const farmOf = new Map(farms.map((f) => [f.id, f]));
+	const orgOf = new Map(orgs.map((o) => [o.id, o]));
+	const dueOf = rises.map((c) =>
+		(recipientsOf.get(c.block.id) ?? []).filter((r) => rank(c.to.level) >= rank(r.minLevel))
+	);
+	const live = rises
+		.map((c, i) => ({ ...c, due: dueOf[i], farm: farmOf.get(c.block.farmId) }))
+		.filter((c) => c.due.length && c.farm);
+	if (!live.length) return 0;
 	const windowMs = s.ALERTS_REPEAT_HOURS * 3_600_000;
-	const [already, stopped, treat] = await Promise.all([
+	const kindOf = (c: LevelRise) => `level-${c.to.level}`;
+	const [already, stopped, treats] = await Promise.all([
 		windowMs
-			? alertedSince(block.id, kind, new Date(now.getTime() - windowMs), t)
-			: new Set<string>(),
+			? alertedSinceMany(
+					live.map((c) => ({ blockId: c.block.id, kind: kindOf(c) })),
+					new Date(now.getTime() - windowMs),
+					t
+				)
+			: new Map<string, Set<string>>(),
 		optedOut(
-			due.flatMap((r) => (r.phone ? [r.phone] : [])),
+			[...new Set(live.flatMap((c) => c.due.flatMap((r) => (r.phone ? [r.phone] : []))))],
 			t
 		),
-		openTreat(block.id, t)
+		openTreats(
+			live.map((c) => c.block.id),
+			t
+		)
 	]);
 	const bucket = windowMs ? Math.floor(now.getTime() / windowMs) : now.getTime();
 	const rows: OutboxRow[] = [];
-	for (const r of due) {
-		if (already.has(`${r.userId}:${r.channel}`)) continue;
-		const msg = levelMessage({
-			block: block.name,
-			farm: farm.name,
-			from,
-			assessment: to,
-			link: blockLink(s, r.role, block.id),
-			settingsUrl: settingsLink(s),
-			treat
-		});
-		const row = rowFor(r, msg, {
-			organisationId: block.organisationId,
-			blockId: block.id,
-			recommendationId: null,
-			kind,
-			dedupeBase: `level:b${block.id}:${to.level}:w${bucket}`,
-			now,
-			timeZone: org?.timezone ?? 'UTC',
-			urgent: to.level === 'severe',
-			optedOut: stopped
-		});
-		if (row) rows.push(row);
+	for (const c of live) {
+		const { block, from, to, due, farm } = c;
+		const kind = kindOf(c);
+		const alerted = already.get(`${block.id}:${kind}`);
+		const treat = treats.get(block.id) ?? null;
+		for (const r of due) {
+			if (alerted?.has(`${r.userId}:${r.channel}`)) continue;
+			const msg = levelMessage({
+				block: block.name,
+				farm: farm!.name,
+				from,
+				assessment: to,
+				link: blockLink(s, r.role, block.id),
+				settingsUrl: settingsLink(s),
+				treat
+			});
+			const row = rowFor(r, msg, {
+				organisationId: block.organisationId,
+				blockId: block.id,
+				recommendationId: null,
+				kind,
+				dedupeBase: `level:b${block.id}:${to.level}:w${bucket}`,
+				now,
+				timeZone: orgOf.get(block.organisationId)?.timezone ?? 'UTC',
+				urgent: to.level === 'severe',
+				optedOut: stopped
+			});
+			if (row) rows.push(row);
+		}
 	}
 	return writeRows(rows, t);
 }

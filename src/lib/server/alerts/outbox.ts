@@ -86,15 +86,26 @@ export async function writeRows(rows: OutboxRow[], t?: Transaction) {
 
 /** People and channels already alerted for this block and kind since `since` (not failed). */
 export async function alertedSince(blockId: number, kind: string, since: Date, t?: Transaction) {
+	return (await alertedSinceMany([{ blockId, kind }], since, t)).get(`${blockId}:${kind}`)!;
+}
+
+/** `alertedSince` for several blocks and kinds in one query, by `blockId:kind`. */
+export async function alertedSinceMany(
+	wanted: { blockId: number; kind: string }[],
+	since: Date,
+	t?: Transaction
+): Promise<Map<string, Set<string>>> {
+	const out = new Map(wanted.map((w) => [`${w.blockId}:${w.kind}`, new Set<string>()]));
+	if (!wanted.length) return out;
 	const rows = await Notification.findAll({
-		attributes: ['userId', 'channel'],
+		attributes: ['blockId', 'kind', 'userId', 'channel'],
 		where: {
-			blockId,
-			kind,
+			[Op.or]: wanted.map((w) => ({ blockId: w.blockId, kind: w.kind })),
 			createdAt: { [Op.gt]: since },
 			status: { [Op.notIn]: ['failed', 'undelivered'] }
 		},
 		transaction: t
 	});
-	return new Set(rows.map((r) => `${r.userId}:${r.channel}`));
+	for (const r of rows) out.get(`${r.blockId}:${r.kind}`)?.add(`${r.userId}:${r.channel}`);
+	return out;
 }

@@ -5,7 +5,7 @@ import { engineInputs, inputAsOf } from '../assessment-input';
 import { setBlockLevels, storeAssessments, type AssessmentRow } from '../assessments';
 import { isDatabaseUnavailable } from '../db/availability';
 import { transaction, Visit } from '../db';
-import { levelChanged } from '../events';
+import { levelsChanged } from '../events';
 import {
 	createVisit,
 	filed,
@@ -104,12 +104,14 @@ async function filingFacts(batch: Waiting[]): Promise<FilingRow[]> {
 		.map(
 			(w, i) =>
 				`SELECT ${param(i)} AS i, ${param(w.user.id)} AS scout, ${param(w.input.sampleUnit)} AS unit,
-				   ${param(w.input.clientKey ?? null)} AS ckey, ${param(w.input.blockId)} AS block`
+				   ${param(w.input.clientKey ?? null)} AS ckey, ${param(w.input.blockId)} AS block,
+				   ${param(w.input.position ? 1 : 0)} AS placed`
 		)
 		.join(' UNION ALL ');
 	const rows = await Visit.sequelize!.query<FilingRow & { i: number }>(
 		`SELECT k.i, e.id AS earlierId, e.scout_id AS earlierScout, e.block_id AS earlierBlock,
-		   b.id AS blockId, b.organisation_id AS organisationId, b.pest_id AS pestId, b.boundary,
+		   b.id AS blockId, b.organisation_id AS organisationId, b.pest_id AS pestId,
+		   IF(k.placed = 1, b.boundary, NULL) AS boundary,
 		   f.grower_id AS growerId,
 		   EXISTS (SELECT 1 FROM scouting_assignments a
 		            WHERE a.block_id = b.id AND a.scout_id = k.scout AND a.active = 1) AS assigned,
@@ -197,7 +199,7 @@ async function writeAndAssess(accepted: Accepted[], t: Transaction): Promise<Cre
 	const rows: AssessmentRow[] = [];
 	const results: EngineAssessment[] = [];
 	const levels = new Map<number, { result: EngineAssessment; lastVisitOn: string | null }>();
-	const changes: Parameters<typeof levelChanged>[0][] = [];
+	const changes: Parameters<typeof levelsChanged>[0] = [];
 	const previous = new Map<number, LevelKey | null>();
 	for (const [k, a] of accepted.entries()) {
 		const blockId = a.prepared.blockId;
@@ -213,7 +215,7 @@ async function writeAndAssess(accepted: Accepted[], t: Transaction): Promise<Cre
 		const last = input.visits[input.visits.length - 1];
 		levels.set(blockId, { result, lastVisitOn: last?.date ?? null });
 		const from = previous.has(blockId) ? previous.get(blockId)! : (e.block.currentLevel ?? null);
-		if (from !== result.level) changes.push({ block: e.block, from, to: result, transaction: t });
+		if (from !== result.level) changes.push({ block: e.block, from, to: result });
 		previous.set(blockId, result.level);
 	}
 	await storeAssessments(rows, t);
@@ -221,6 +223,6 @@ async function writeAndAssess(accepted: Accepted[], t: Transaction): Promise<Cre
 		[...levels].map(([blockId, l]) => ({ blockId, ...l, at: computedAt })),
 		t
 	);
-	for (const c of changes) await levelChanged(c);
+	await levelsChanged(changes, t);
 	return accepted.map((a, k) => filed(a.w.user, a.w.input, a.prepared, ids[k], now, results[k]));
 }
