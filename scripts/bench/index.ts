@@ -1,6 +1,6 @@
 import { existsSync } from 'node:fs';
 import { join } from 'node:path';
-import { runCommand } from '../lib/procs';
+import { runCommand, startProcess } from '../lib/procs';
 import { profileEnv, root, type Profile } from '../lib/profile';
 import { startServices } from '../lib/stack';
 
@@ -20,7 +20,18 @@ export const BENCHES = [
  */
 export async function runBench(p: Profile, args: string[]): Promise<number> {
 	const tsx = join(root, 'node_modules/.bin/tsx');
+	// The outbox worker runs in a process of its own, as for a busy deployment (README,
+	// "Running more than one instance"): the bench's visits raise hundreds of level alerts, and
+	// sending them would otherwise share the app's one thread with the requests being measured.
+	process.env.ALERTS_WORKER ??= 'off';
 	const env = await startServices(p, { quiet: true });
+	if (env.ALERTS_WORKER === 'off') {
+		startProcess('alerts', tsx, ['src/lib/server/alerts/cli.ts'], {
+			cwd: root,
+			env: { ...env, ALERTS_WORKER: 'on' },
+			quiet: true
+		});
+	}
 	let failed = 0;
 	// An argument that is a script's path runs that script (trying out a measurement).
 	const own = args.filter((a) => a.endsWith('.ts') && existsSync(join(root, a)));
