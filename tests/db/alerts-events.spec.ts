@@ -223,12 +223,12 @@ describe('level changes of a batch of visits', () => {
 		await testDb().transaction((t) => levelsChanged(changes(all), t));
 		const shape = async (w: Awaited<ReturnType<typeof make>>) => {
 			const who = new Map([
-				[w.grower.id, 'grower'],
-				[w.agronomist.id, 'agronomist']
+				[Number(w.grower.id), 'grower'],
+				[Number(w.agronomist.id), 'agronomist']
 			]);
 			const where = new Map([
-				[w.block.id, 'block'],
-				[w.other.id, 'other']
+				[Number(w.block.id), 'block'],
+				[Number(w.other.id), 'other']
 			]);
 			const rows = await Notification.findAll({ where: { blockId: [w.block.id, w.other.id] } });
 			const audits = await AuditLog.count({
@@ -237,7 +237,10 @@ describe('level changes of a batch of visits', () => {
 			return {
 				audits,
 				rows: rows
-					.map((r) => `${where.get(r.blockId!)} ${who.get(r.userId)} ${r.channel} ${r.kind}`)
+					.map(
+						(r) =>
+							`${where.get(Number(r.blockId))} ${who.get(Number(r.userId))} ${r.channel} ${r.kind}`
+					)
 					.sort()
 			};
 		};
