@@ -29,7 +29,6 @@ async function pool() {
 async function setUp(p: mariadb.Pool) {
 	const [scout] = await p.query(`SELECT id FROM users WHERE email = 'tomas@brackenridge.test'`);
 	const [tmpl] = await p.query(`SELECT * FROM blocks WHERE name = 'North Forty'`);
-	const [unit] = await p.query(`SELECT id FROM sample_units WHERE code = 'plant'`);
 	const conn = await p.getConnection();
 	try {
 		await conn.beginTransaction();
@@ -52,12 +51,7 @@ async function setUp(p: mariadb.Pool) {
 			);
 		}
 		await conn.commit();
-		return {
-			blockIds: ids,
-			scoutId: Number(scout.id),
-			pestId: Number(tmpl.pest_id),
-			unitId: Number(unit.id)
-		};
+		return { blockIds: ids };
 	} finally {
 		conn.release();
 	}

@@ -313,7 +313,6 @@ export async function replayInputs(
 export interface EngineInput {
 	block: Block;
 	input: AssessBlockInput;
-	visitIds: number[];
 	/** Units per plant by sample unit code (the block's figure follows its latest visit). */
 	unitsPerPlant: Map<string, number | null>;
 }
@@ -464,7 +463,7 @@ export async function engineInputs(
 			isNewRecord: false,
 			raw: true
 		});
-		out.set(row.id, { block, input, visitIds: own.map((v) => v.id), unitsPerPlant: perCode });
+		out.set(row.id, { block, input, unitsPerPlant: perCode });
 	}
 	return out;
 }
