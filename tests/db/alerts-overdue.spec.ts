@@ -68,6 +68,21 @@ describe('scouting overdue alerts', () => {
 		);
 	});
 
+	it("count each row once when two sweeps race (INSERT IGNORE skips the loser's rows)", async () => {
+		const now = new Date();
+		const today = now.toISOString().slice(0, 10);
+		const w = await alertWorld();
+		await w.block.update({ lastVisitOn: isoPlusDays(today, -10), currentLevel: 'action' });
+		await ScoutingAssignment.create({ blockId: w.block.id, scoutId: w.scout.id, intervalDays: 7 });
+		await subscribe(w.scout, 'sms', { minLevel: 'severe' });
+		await subscribe(w.scout, 'email');
+		await subscribe(w.agronomist, 'email', { minLevel: 'action' });
+
+		const counts = await Promise.all([sweep(w.org.id, now), sweep(w.org.id, now)]);
+		expect(await rowsFor(w.block.id)).toHaveLength(3);
+		expect(counts[0] + counts[1]).toBe(3);
+	});
+
 	it("follows each scout's own interval and open follow-up dates, as the rounds and desk do", async () => {
 		const today = new Date().toISOString().slice(0, 10);
 		const w = await alertWorld();

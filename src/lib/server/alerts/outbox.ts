@@ -1,4 +1,4 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import type { Channel } from '../../domain';
 import { Notification } from '../db/models';
 import type { Composed } from './compose';
@@ -75,13 +75,21 @@ export function rowFor(r: Recipient, msg: Composed, c: RowContext): OutboxRow | 
 }
 
 /**
- * Writes outbox rows in the caller's transaction. A row whose dedupe key exists is skipped
- * (INSERT IGNORE), so a repeat of the same event never queues a second message.
+ * Writes outbox rows in the caller's transaction and returns how many went in. A row whose
+ * dedupe key exists is skipped (INSERT IGNORE), so a repeat of the same event never queues a
+ * second message, and two sweeps that race count each row once between them.
  */
-export async function writeRows(rows: OutboxRow[], t?: Transaction) {
+export async function writeRows(rows: OutboxRow[], t?: Transaction): Promise<number> {
 	if (!rows.length) return 0;
+	const sequelize = Notification.sequelize!;
+	// ROW_COUNT() reads the statement before it on the same connection, which a transaction pins.
+	if (!t) return sequelize.transaction((own) => writeRows(rows, own));
 	await Notification.bulkCreate(rows, { transaction: t, ignoreDuplicates: true });
-	return rows.length;
+	const [{ n }] = await sequelize.query<{ n: number | bigint }>('SELECT ROW_COUNT() AS n', {
+		type: QueryTypes.SELECT,
+		transaction: t
+	});
+	return Number(n);
 }
 
 /** People and channels already alerted for this block and kind since `since` (not failed). */
