@@ -43,4 +43,28 @@ describe('quiet hours', () => {
 		expect(localTime(at, 'America/Chicago')).toMatchObject({ date: '2026-11-01', minute: 390 });
 		expect(at.toISOString()).toBe('2026-11-01T12:30:00.000Z');
 	});
+
+	it('lands on the local end time when the clock goes forward overnight', () => {
+		// US clocks go forward on 2027-03-14 at 02:00 CST (second Sunday of March); 23:00 CST
+		// on 13 March is 05:00 UTC, and 06:30 CDT the next morning is 11:30 UTC.
+		const at = releaseAfterQuiet(
+			new Date('2027-03-14T05:00:00Z'),
+			'America/Chicago',
+			'21:00',
+			'06:30'
+		);
+		expect(at.toISOString()).toBe('2027-03-14T11:30:00.000Z');
+		expect(localTime(at, 'America/Chicago')).toMatchObject({ date: '2027-03-14', minute: 390 });
+	});
+
+	it('waits within the same day when quiet hours do not cross midnight', () => {
+		// 12:00-14:00 in Berlin (CEST, UTC+2): 12:30 local is 10:30 UTC, released 14:00 = 12:00 UTC.
+		const at = releaseAfterQuiet(
+			new Date('2026-07-01T10:30:00Z'),
+			'Europe/Berlin',
+			'12:00',
+			'14:00'
+		);
+		expect(at.toISOString()).toBe('2026-07-01T12:00:00.000Z');
+	});
 });

@@ -1,3 +1,4 @@
+import { TZDate } from '@date-fns/tz';
 import { QueryTypes } from 'sequelize';
 import type { Channel, NotificationStatus } from '$lib/domain';
 import type { AlertLogQuery } from '$lib/schemas/alerts';
@@ -25,29 +26,8 @@ export interface LogRow {
 
 /** UTC instant of local midnight on `day` (YYYY-MM-DD) in `timeZone`. */
 export function zonedMidnight(day: string, timeZone: string): Date {
-	const guess = new Date(`${day}T00:00:00Z`);
-	const offsetAt = (at: Date) => {
-		const p = Object.fromEntries(
-			new Intl.DateTimeFormat('en-US', {
-				timeZone,
-				hourCycle: 'h23',
-				year: 'numeric',
-				month: '2-digit',
-				day: '2-digit',
-				hour: '2-digit',
-				minute: '2-digit',
-				second: '2-digit'
-			})
-				.formatToParts(at)
-				.map((x) => [x.type, x.value])
-		);
-		const local = Date.UTC(+p.year, +p.month - 1, +p.day, +p.hour, +p.minute, +p.second);
-		return local - at.getTime();
-	};
-	// Twice, so a day whose clock changes near midnight lands on its own offset.
-	let at = new Date(guess.getTime() - offsetAt(guess));
-	at = new Date(guess.getTime() - offsetAt(at));
-	return at;
+	const [y, m, d] = day.split('-').map(Number);
+	return new Date(new TZDate(y, m - 1, d, timeZone).getTime());
 }
 
 export const toDate = (v: Date | string) =>
