@@ -8,6 +8,7 @@ import {
 } from '../engine';
 import { engineInput, storedInputs } from './assessment-input';
 import { Block } from './db/models';
+import { sqlTime } from './db/sql';
 import { levelChanged } from './events';
 
 /**
@@ -43,8 +44,7 @@ export { engineInput, replayInputs, rulesFor } from './assessment-input';
 
 const iso = (d: Date) => d.toISOString().slice(0, 10);
 
-/** A UTC DATETIME literal with milliseconds (the app's connection runs at +00:00). */
-export const sqlTime = (d: Date) => d.toISOString().slice(0, 23).replace('T', ' ');
+export { sqlTime };
 
 /**
  * Runs the engine for a block, stores the assessment with its inputs, updates the block's

@@ -1,8 +1,9 @@
-import type { Transaction } from 'sequelize';
+import { QueryTypes, type Transaction } from 'sequelize';
 import type { Assessment as EngineAssessment, LevelKey } from '../engine';
 import { queueLevelAlertsMany } from './alerts/levelAlerts';
 import { queueRecommendationAlerts } from './alerts/recommendationAlerts';
 import { AuditLog, type Block } from './db/models';
+import { sqlTime } from './db/sql';
 
 export interface LevelChange {
 	block: Block;
@@ -23,16 +24,22 @@ export async function levelChanged(change: LevelChange) {
 /** `levelChanged` for several changes (a batch of visits): one audit insert, one alert pass. */
 export async function levelsChanged(changes: Omit<LevelChange, 'transaction'>[], t?: Transaction) {
 	if (!changes.length) return;
-	await AuditLog.bulkCreate(
-		changes.map((c) => ({
-			organisationId: c.block.organisationId,
-			actorId: null,
-			action: 'level-changed',
-			entity: 'block',
-			entityId: String(c.block.id),
-			details: { from: c.from, to: c.to.level, reason: c.to.reason }
-		})),
-		{ transaction: t }
+	// One plain statement rather than the model's bulkCreate, which builds and validates an
+	// instance per row: this runs inside every batch of visits that changes a level.
+	const now = sqlTime(new Date());
+	await AuditLog.sequelize!.query(
+		`INSERT INTO audit_log (organisation_id, actor_id, action, entity, entity_id, details, created_at)
+		 VALUES ${changes.map(() => "(?, NULL, 'level-changed', 'block', ?, ?, ?)").join(', ')}`,
+		{
+			replacements: changes.flatMap((c) => [
+				c.block.organisationId,
+				String(c.block.id),
+				JSON.stringify({ from: c.from, to: c.to.level, reason: c.to.reason }),
+				now
+			]),
+			type: QueryTypes.INSERT,
+			transaction: t
+		}
 	);
 	await queueLevelAlertsMany(changes, t);
 }

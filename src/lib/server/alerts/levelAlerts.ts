@@ -1,7 +1,7 @@
-import { Op, type Transaction } from 'sequelize';
+import { Op, QueryTypes, type Transaction } from 'sequelize';
 import { LEVEL_KEYS } from '../../domain';
 import type { Assessment as EngineAssessment, LevelKey } from '../../engine';
-import { Block, Farm, Organisation, Product, Recommendation } from '../db/models';
+import { Block, Product, Recommendation } from '../db/models';
 import { levelMessage, type TreatInfo } from './compose';
 import { blockLink, settingsLink } from './links';
 import { alertedSinceMany, rowFor, writeRows, type OutboxRow } from './outbox';
@@ -76,54 +76,57 @@ export async function queueLevelAlertsMany(
 	if (!rises.length) return 0;
 	const s = currentSettings();
 	const blocks = [...new Map(rises.map((c) => [c.block.id, c.block])).values()];
-	const [farms, orgs, recipientsOf] = await Promise.all([
-		Farm.findAll({ where: { id: [...new Set(blocks.map((b) => b.farmId))] }, transaction: t }),
-		Organisation.findAll({
-			where: { id: [...new Set(blocks.map((b) => b.organisationId))] },
-			transaction: t
-		}),
+	const [places, recipientsOf] = await Promise.all([
+		Block.sequelize!.query<{ blockId: number; farm: string; timeZone: string }>(
+			`SELECT b.id AS blockId, f.name AS farm, o.timezone AS timeZone
+			   FROM blocks b JOIN farms f ON f.id = b.farm_id
+			   JOIN organisations o ON o.id = b.organisation_id
+			  WHERE b.id IN (?)`,
+			{ replacements: [blocks.map((b) => b.id)], type: QueryTypes.SELECT, transaction: t }
+		),
 		recipientsForBlocks(blocks, t)
 	]);
-	const farmOf = new Map(farms.map((f) => [f.id, f]));
-	const orgOf = new Map(orgs.map((o) => [o.id, o]));
-	const dueOf = rises.map((c) =>
-		(recipientsOf.get(c.block.id) ?? []).filter((r) => rank(c.to.level) >= rank(r.minLevel))
-	);
+	const placeOf = new Map(places.map((p) => [Number(p.blockId), p]));
 	const live = rises
-		.map((c, i) => ({ ...c, due: dueOf[i], farm: farmOf.get(c.block.farmId) }))
-		.filter((c) => c.due.length && c.farm);
+		.map((c) => ({
+			...c,
+			due: (recipientsOf.get(c.block.id) ?? []).filter((r) => rank(c.to.level) >= rank(r.minLevel)),
+			place: placeOf.get(c.block.id)
+		}))
+		.filter((c) => c.due.length && c.place);
 	if (!live.length) return 0;
 	const windowMs = s.ALERTS_REPEAT_HOURS * 3_600_000;
 	const kindOf = (c: LevelRise) => `level-${c.to.level}`;
-	const [already, stopped, treats] = await Promise.all([
-		windowMs
-			? alertedSinceMany(
-					live.map((c) => ({ blockId: c.block.id, kind: kindOf(c) })),
-					new Date(now.getTime() - windowMs),
-					t
-				)
-			: new Map<string, Set<string>>(),
+	const already = windowMs
+		? await alertedSinceMany(
+				live.map((c) => ({ blockId: c.block.id, kind: kindOf(c) })),
+				new Date(now.getTime() - windowMs),
+				t
+			)
+		: new Map<string, Set<string>>();
+	// Only people not alerted within the window get a message; most repeat rises stop here.
+	const send = live
+		.map((c) => {
+			const alerted = already.get(`${c.block.id}:${kindOf(c)}`);
+			return { ...c, due: c.due.filter((r) => !alerted?.has(`${r.userId}:${r.channel}`)) };
+		})
+		.filter((c) => c.due.length);
+	if (!send.length) return 0;
+	const [stopped, treats] = await Promise.all([
 		optedOut(
-			[...new Set(live.flatMap((c) => c.due.flatMap((r) => (r.phone ? [r.phone] : []))))],
+			[...new Set(send.flatMap((c) => c.due.flatMap((r) => (r.phone ? [r.phone] : []))))],
 			t
 		),
-		openTreats(
-			live.map((c) => c.block.id),
-			t
-		)
+		openTreats([...new Set(send.map((c) => c.block.id))], t)
 	]);
 	const bucket = windowMs ? Math.floor(now.getTime() / windowMs) : now.getTime();
 	const rows: OutboxRow[] = [];
-	for (const c of live) {
-		const { block, from, to, due, farm } = c;
-		const kind = kindOf(c);
-		const alerted = already.get(`${block.id}:${kind}`);
+	for (const { block, from, to, due, place } of send) {
 		const treat = treats.get(block.id) ?? null;
 		for (const r of due) {
-			if (alerted?.has(`${r.userId}:${r.channel}`)) continue;
 			const msg = levelMessage({
 				block: block.name,
-				farm: farm!.name,
+				farm: place!.farm,
 				from,
 				assessment: to,
 				link: blockLink(s, r.role, block.id),
@@ -134,10 +137,10 @@ export async function queueLevelAlertsMany(
 				organisationId: block.organisationId,
 				blockId: block.id,
 				recommendationId: null,
-				kind,
+				kind: `level-${to.level}`,
 				dedupeBase: `level:b${block.id}:${to.level}:w${bucket}`,
 				now,
-				timeZone: orgOf.get(block.organisationId)?.timezone ?? 'UTC',
+				timeZone: place!.timeZone ?? 'UTC',
 				urgent: to.level === 'severe',
 				optedOut: stopped
 			});
