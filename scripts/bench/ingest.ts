@@ -5,6 +5,9 @@ import autocannon from 'autocannon';
 import mariadb from 'mariadb';
 import { randomUUID } from 'node:crypto';
 import os from 'node:os';
+import { alertSettings } from '../../src/lib/server/alerts/settings';
+import { AlertWorker } from '../../src/lib/server/alerts/worker';
+import { connect } from '../../src/lib/server/db/connect';
 import { ms, percentile, signIn } from './stats';
 
 const APP = process.env.BENCH_APP_URL!;
@@ -296,6 +299,45 @@ async function viaDriver(
 	return { rate: stored.length / seconds, seconds, latencies };
 }
 
+/**
+ * Sends the alerts the bench's visits queued. The bench runner stops the outbox worker while
+ * ingest is measured (scripts/bench/index.ts), so they wait in the outbox until now; an SMS
+ * held for a subscriber's quiet hours stays held.
+ */
+async function sendQueued(p: mariadb.Pool, blockIds: number[]) {
+	const counts = async () => {
+		const [r] = await p.query(
+			`SELECT COUNT(*) AS queued,
+			   SUM(status IN ('pending', 'sending') AND not_before <= UTC_TIMESTAMP(3)) AS due,
+			   SUM(status IN ('pending', 'sending') AND not_before > UTC_TIMESTAMP(3)) AS held,
+			   SUM(status IN ('sent', 'delivered')) AS sent
+			 FROM notifications WHERE block_id IN (?)`,
+			[blockIds]
+		);
+		return {
+			queued: Number(r.queued),
+			due: Number(r.due ?? 0),
+			held: Number(r.held ?? 0),
+			sent: Number(r.sent ?? 0)
+		};
+	};
+	const before = await counts();
+	const settings = alertSettings(process.env);
+	const sq = connect({ url: settings.DATABASE_URL });
+	const worker = new AlertWorker({ sequelize: sq, settings, digests: false, overdue: false });
+	const t0 = performance.now();
+	worker.start();
+	let now = before;
+	while (now.due > 0 && performance.now() - t0 < 120_000) {
+		await new Promise((r) => setTimeout(r, 50));
+		now = await counts();
+	}
+	const seconds = (performance.now() - t0) / 1000;
+	await worker.stop();
+	await sq.close();
+	return { before, after: now, seconds };
+}
+
 const p = await pool();
 try {
 	const ids = await setUp(p);
@@ -352,6 +394,10 @@ try {
 			.loadavg()
 			.map((n) => n.toFixed(1))
 			.join(' ')})`
+	);
+	const alerts = await sendQueued(p, ids.blockIds);
+	console.log(
+		`  alerts queued by these visits: ${alerts.before.queued} (${alerts.before.due} due, ${alerts.before.held} held for quiet hours); sent after the runs: ${alerts.after.sent} in ${alerts.seconds.toFixed(1)} s${alerts.after.due ? `; WARNING: ${alerts.after.due} still due` : ''}`
 	);
 	if (app.ok !== REQUESTS)
 		console.log(`  WARNING: ${REQUESTS - app.ok} requests were not answered 2xx`);
