@@ -64,6 +64,55 @@ describe('level alerts', () => {
 		).toBe(1);
 	});
 
+	it('holds back a repeat only for the same block and level, and audits each change', async () => {
+		// One pass over several blocks and levels: an alert for block A at "action" must not
+		// hold back block B at "action", nor block A at "severe" (common practice: the repeat
+		// window is per block and level).
+		const w = await alertWorld();
+		const other = await buildBlock(w.farm, await soyIds(), { currentLevel: 'calm' });
+		await subscribe(w.grower, 'sms');
+		const kinds = async () =>
+			(await Notification.findAll({ where: { blockId: [w.block.id, other.id] } }))
+				.map((r) => `${r.blockId === w.block.id ? 'A' : 'B'}:${r.kind}`)
+				.sort();
+		await levelsChanged([{ block: w.block, from: 'calm', to: assessmentAt('action') }]);
+		expect(await kinds()).toEqual(['A:level-action']);
+		await testDb().transaction((t) =>
+			levelsChanged(
+				[
+					{ block: other, from: 'calm', to: assessmentAt('action') },
+					{ block: w.block, from: 'action', to: assessmentAt('severe') }
+				],
+				t
+			)
+		);
+		expect(await kinds()).toEqual(['A:level-action', 'A:level-severe', 'B:level-action']);
+		await levelsChanged([
+			{ block: w.block, from: 'calm', to: assessmentAt('action') }, // a repeat in the window
+			{ block: other, from: 'action', to: assessmentAt('severe') }
+		]);
+		expect(await kinds()).toEqual([
+			'A:level-action',
+			'A:level-severe',
+			'B:level-action',
+			'B:level-severe'
+		]);
+		const audit = await AuditLog.findAll({
+			where: { action: 'level-changed', entityId: [String(w.block.id), String(other.id)] },
+			order: [['id', 'ASC']]
+		});
+		expect(audit.map((a) => [a.entityId === String(w.block.id) ? 'A' : 'B', a.details])).toEqual([
+			['A', { from: 'calm', to: 'action', reason: assessmentAt('action').reason }],
+			['B', { from: 'calm', to: 'action', reason: assessmentAt('action').reason }],
+			['A', { from: 'action', to: 'severe', reason: assessmentAt('severe').reason }],
+			['A', { from: 'calm', to: 'action', reason: assessmentAt('action').reason }],
+			['B', { from: 'action', to: 'severe', reason: assessmentAt('severe').reason }]
+		]);
+		expect(audit.every((a) => a.organisationId === w.org.id && a.createdAt instanceof Date)).toBe(
+			true
+		);
+	});
+
 	it('respects the lowest level, a fall, the repeat window and assigned scouts', async () => {
 		const w = await alertWorld();
 		await subscribe(w.grower, 'sms', { minLevel: 'severe' });
