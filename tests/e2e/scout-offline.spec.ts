@@ -75,6 +75,10 @@ describe('offline rounds', () => {
 			});
 
 			await context.setOffline(true);
+			// Chromium's offline emulation once let the first visit's POST reach the server (a
+			// clean-clone run, 2026-12-02), so the API is also made unreachable for every page of
+			// the phone while it has no signal.
+			await context.route('**/api/**', (r) => r.abort('internetdisconnected'));
 			await quickVisit(page, ids['Pea Field'], /Next sweep/);
 			expect(await page.evaluate(() => navigator.onLine)).toBe(false);
 			await quickVisit(page, ids['Home Wheat'], /Next tiller/);
@@ -90,6 +94,7 @@ describe('offline rounds', () => {
 			await expect.poll(() => page.locator('li[data-status="waiting"]').count()).toBe(3);
 			expect(await now()).toEqual(before);
 
+			await context.unroute('**/api/**');
 			await context.setOffline(false);
 			await page.evaluate(() => window.dispatchEvent(new Event('online')));
 			await expect
