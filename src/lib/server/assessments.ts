@@ -44,8 +44,6 @@ export { engineInput, replayInputs, rulesFor } from './assessment-input';
 
 const iso = (d: Date) => d.toISOString().slice(0, 10);
 
-export { sqlTime };
-
 /**
  * Runs the engine for a block, stores the assessment with its inputs, updates the block's
  * current level and hands a change of level to the alerts entry point.

@@ -87,13 +87,13 @@ export async function queueLevelAlertsMany(
 		recipientsForBlocks(blocks, t)
 	]);
 	const placeOf = new Map(places.map((p) => [Number(p.blockId), p]));
-	const live = rises
-		.map((c) => ({
-			...c,
-			due: (recipientsOf.get(c.block.id) ?? []).filter((r) => rank(c.to.level) >= rank(r.minLevel)),
-			place: placeOf.get(c.block.id)
-		}))
-		.filter((c) => c.due.length && c.place);
+	const live = rises.flatMap((c) => {
+		const place = placeOf.get(c.block.id);
+		const due = (recipientsOf.get(c.block.id) ?? []).filter(
+			(r) => rank(c.to.level) >= rank(r.minLevel)
+		);
+		return place && due.length ? [{ ...c, due, place }] : [];
+	});
 	if (!live.length) return 0;
 	const windowMs = s.ALERTS_REPEAT_HOURS * 3_600_000;
 	const kindOf = (c: LevelRise) => `level-${c.to.level}`;
@@ -121,12 +121,13 @@ export async function queueLevelAlertsMany(
 	]);
 	const bucket = windowMs ? Math.floor(now.getTime() / windowMs) : now.getTime();
 	const rows: OutboxRow[] = [];
-	for (const { block, from, to, due, place } of send) {
+	for (const c of send) {
+		const { block, from, to, due, place } = c;
 		const treat = treats.get(block.id) ?? null;
 		for (const r of due) {
 			const msg = levelMessage({
 				block: block.name,
-				farm: place!.farm,
+				farm: place.farm,
 				from,
 				assessment: to,
 				link: blockLink(s, r.role, block.id),
@@ -137,10 +138,10 @@ export async function queueLevelAlertsMany(
 				organisationId: block.organisationId,
 				blockId: block.id,
 				recommendationId: null,
-				kind: `level-${to.level}`,
+				kind: kindOf(c),
 				dedupeBase: `level:b${block.id}:${to.level}:w${bucket}`,
 				now,
-				timeZone: place!.timeZone ?? 'UTC',
+				timeZone: place.timeZone,
 				urgent: to.level === 'severe',
 				optedOut: stopped
 			});

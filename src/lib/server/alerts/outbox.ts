@@ -75,6 +75,27 @@ export function rowFor(r: Recipient, msg: Composed, c: RowContext): OutboxRow | 
 	};
 }
 
+/** The outbox's columns as `writeRows` fills them, each with its value for a row. */
+const OUTBOX_COLUMNS: [string, (r: OutboxRow, now: string) => unknown][] = [
+	['organisation_id', (r) => r.organisationId],
+	['user_id', (r) => r.userId],
+	['block_id', (r) => r.blockId],
+	['recommendation_id', (r) => r.recommendationId],
+	['channel', (r) => r.channel],
+	['kind', (r) => r.kind],
+	['dedupe_key', (r) => r.dedupeKey],
+	['to_address', (r) => r.toAddress],
+	['subject', (r) => r.subject],
+	['body_text', (r) => r.bodyText],
+	['body_html', (r) => r.bodyHtml],
+	['status', (r) => r.status],
+	['attempts', () => 0],
+	['not_before', (r) => sqlTime(r.notBefore)],
+	['last_error', (r) => r.lastError],
+	['created_at', (_, now) => now],
+	['updated_at', (_, now) => now]
+];
+
 /**
  * Writes outbox rows in the caller's transaction and returns how many went in. A row whose
  * dedupe key exists is skipped (INSERT IGNORE), so a repeat of the same event never queues a
@@ -86,55 +107,18 @@ export async function writeRows(rows: OutboxRow[], t?: Transaction): Promise<num
 	// which cost more than the insert for a batch of visits' alerts. INSERT IGNORE's affected
 	// rows are the rows that went in.
 	const now = sqlTime(new Date());
+	const tuple = `(${OUTBOX_COLUMNS.map(() => '?').join(', ')})`;
 	const [, inserted] = await Notification.sequelize!.query(
-		`INSERT IGNORE INTO notifications (${OUTBOX_COLUMNS.join(', ')})
-		 VALUES ${rows.map(() => `(${OUTBOX_COLUMNS.map(() => '?').join(', ')})`).join(', ')}`,
+		`INSERT IGNORE INTO notifications (${OUTBOX_COLUMNS.map(([c]) => c).join(', ')})
+		 VALUES ${rows.map(() => tuple).join(', ')}`,
 		{
-			replacements: rows.flatMap((r) => [
-				r.organisationId,
-				r.userId,
-				r.blockId,
-				r.recommendationId,
-				r.channel,
-				r.kind,
-				r.dedupeKey,
-				r.toAddress,
-				r.subject,
-				r.bodyText,
-				r.bodyHtml,
-				r.status,
-				0,
-				sqlTime(r.notBefore),
-				r.lastError,
-				now,
-				now
-			]),
+			replacements: rows.flatMap((r) => OUTBOX_COLUMNS.map(([, value]) => value(r, now))),
 			type: QueryTypes.INSERT,
 			transaction: t
 		}
 	);
 	return Number(inserted);
 }
-
-const OUTBOX_COLUMNS = [
-	'organisation_id',
-	'user_id',
-	'block_id',
-	'recommendation_id',
-	'channel',
-	'kind',
-	'dedupe_key',
-	'to_address',
-	'subject',
-	'body_text',
-	'body_html',
-	'status',
-	'attempts',
-	'not_before',
-	'last_error',
-	'created_at',
-	'updated_at'
-];
 
 /** People and channels already alerted for this block and kind since `since` (not failed). */
 export async function alertedSince(blockId: number, kind: string, since: Date, t?: Transaction) {

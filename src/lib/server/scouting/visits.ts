@@ -2,9 +2,10 @@ import { Op, QueryTypes, UniqueConstraintError, type Transaction } from 'sequeli
 import { EngineInputError, type Assessment as EngineAssessment } from '$lib/engine';
 import { LEVEL_DISPLAY } from '$lib/levels';
 import type { VisitCreate } from '$lib/schemas/scouting';
-import { reassessBlock, sqlTime } from '../assessments';
+import { reassessBlock } from '../assessments';
 import { json } from '../assessment-input';
 import { Photo, SampleUnit, transaction, User, Visit, VisitCount } from '../db';
+import { sqlTime } from '../db/sql';
 import { blockAccess, blockFor, type Refusal } from './access';
 import { outsideBoundary } from './geo';
 
