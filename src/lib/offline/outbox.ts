@@ -126,8 +126,15 @@ async function sendOne(item: OutboxItem): Promise<Outcome> {
 let running: Promise<void> | null = null;
 let again = false;
 
-/** Sends everything waiting, oldest first; one run at a time per tab (and per phone, with locks). */
+/**
+ * Sends everything waiting, oldest first; one run at a time per tab (and per phone, with locks).
+ * Nothing while the phone is offline.
+ */
 export function flush(): Promise<void> {
+	// A phone that knows it has no connection tries nothing: a request sent then can still
+	// reach the server while its answer is lost (Chromium let one through in a test), and the
+	// 'online' event sends everything anyway (startAutoFlush).
+	if (navigator.onLine === false) return running ?? Promise.resolve();
 	if (running) {
 		again = true; // something was queued meanwhile: go round once more
 		return running;
