@@ -371,34 +371,22 @@ try {
 	// machine: on a shared host the CPU the hypervisor gives to other guests (steal) swings
 	// from a few per cent to over a third within minutes, and one long run of each compares
 	// two different machines as much as two ways of writing.
-	const keys: string[] = [];
-	const rounds: {
-		app: AppRun;
-		raw: Awaited<ReturnType<typeof viaDriver>>;
-		steal: [number | null, number | null];
-	}[] = [];
+	const appRounds: AppRun[] = [];
+	const rawRounds: Awaited<ReturnType<typeof viaDriver>>[] = [];
+	const steal: [number | null, number | null][] = [];
+	const stored: Awaited<ReturnType<typeof storedRows>> = [];
 	for (let r = 0; r < ROUNDS; r++) {
 		const roundKeys: string[] = [];
 		const t0 = cpuTicks();
-		const appRound = await viaApp(ids.blockIds, roundKeys, PER_ROUND);
+		appRounds.push(await viaApp(ids.blockIds, roundKeys, PER_ROUND));
+		if (process.env.BENCH_INGEST_APP_ONLY) continue;
 		const t1 = cpuTicks();
-		keys.push(...roundKeys);
-		if (process.env.BENCH_INGEST_APP_ONLY) {
-			rounds.push({
-				app: appRound,
-				raw: { rate: 0, seconds: 0, latencies: [] },
-				steal: [stealBetween(t0, t1), null]
-			});
-			continue;
-		}
-		const rawRound = await viaDriver(p, await storedRows(p, roundKeys), true);
-		rounds.push({
-			app: appRound,
-			raw: rawRound,
-			steal: [stealBetween(t0, t1), stealBetween(t1, cpuTicks())]
-		});
+		const rows = await storedRows(p, roundKeys);
+		stored.push(...rows);
+		rawRounds.push(await viaDriver(p, rows, true));
+		steal.push([stealBetween(t0, t1), stealBetween(t1, cpuTicks())]);
 	}
-	const app = combined(rounds.map((r) => r.app));
+	const app = combined(appRounds);
 	// BENCH_INGEST_APP_ONLY=1 stops after the app's rounds (for profiling the app with APP_NODE_ARGS).
 	if (process.env.BENCH_INGEST_APP_ONLY) {
 		console.log(
@@ -406,10 +394,9 @@ try {
 		);
 		process.exit(0);
 	}
-	const stored = await storedRows(p, keys);
 	const raw = {
-		rate: stored.length / rounds.reduce((a, r) => a + r.raw.seconds, 0),
-		latencies: rounds.flatMap((r) => r.raw.latencies)
+		rate: stored.length / rawRounds.reduce((a, r) => a + r.seconds, 0),
+		latencies: rawRounds.flatMap((r) => r.latencies)
 	};
 	const rawLean = await viaDriver(p, stored, false);
 	// Latency with the 50 clients sending at a fixed total rate rather than as fast as answers
@@ -444,10 +431,10 @@ try {
 	console.log(`  app, one client, one visit at a time: ${line(single)}`);
 	const pct = (n: number | null) => (n === null ? '?' : `${n.toFixed(0)} %`);
 	console.log(
-		`  rounds, app | raw visits/s (ratio; CPU steal during app | raw): ${rounds
+		`  rounds, app | raw visits/s (ratio; CPU steal during app | raw): ${appRounds
 			.map(
-				(r) =>
-					`${r.app.rate.toFixed(0)} | ${r.raw.rate.toFixed(0)} (${(r.app.rate / r.raw.rate).toFixed(2)}; ${pct(r.steal[0])} | ${pct(r.steal[1])})`
+				(a, k) =>
+					`${a.rate.toFixed(0)} | ${rawRounds[k].rate.toFixed(0)} (${(a.rate / rawRounds[k].rate).toFixed(2)}; ${pct(steal[k][0])} | ${pct(steal[k][1])})`
 			)
 			.join(', ')}`
 	);

@@ -83,7 +83,6 @@ interface Timing {
 	median: number;
 	p95: number;
 	dbMedian: number;
-	body: string;
 }
 
 /**
@@ -96,8 +95,7 @@ async function time(urls: string[], cookie: string): Promise<Timing[]> {
 		times: [] as number[],
 		db: [] as number[],
 		features: 0,
-		bytes: 0,
-		body: ''
+		bytes: 0
 	}));
 	for (let i = 0; i < RUNS + 5; i++) {
 		for (const [k, url] of urls.entries()) {
@@ -114,7 +112,6 @@ async function time(urls: string[], cookie: string): Promise<Timing[]> {
 			if (i === 0) {
 				o.features = (JSON.parse(text) as { features: unknown[] }).features.length;
 				o.bytes = text.length;
-				o.body = text;
 			}
 		}
 	}
@@ -123,8 +120,7 @@ async function time(urls: string[], cookie: string): Promise<Timing[]> {
 		bytes: o.bytes,
 		median: percentile(o.times, 50),
 		p95: percentile(o.times, 95),
-		dbMedian: percentile(o.db, 50),
-		body: o.body
+		dbMedian: percentile(o.db, 50)
 	}));
 }
 

@@ -132,8 +132,8 @@ let again = false;
  */
 export function flush(): Promise<void> {
 	// A phone that knows it has no connection tries nothing: a request sent then can still
-	// reach the server while its answer is lost (Chromium let one through in a test), and the
-	// 'online' event sends everything anyway (startAutoFlush).
+	// reach the server while its answer is lost, and the 'online' event sends everything
+	// (startAutoFlush).
 	if (navigator.onLine === false) return running ?? Promise.resolve();
 	if (running) {
 		again = true; // something was queued meanwhile: go round once more
@@ -196,9 +196,7 @@ async function recover() {
 /** Sends when the connection returns, when the page shows again, and every half minute. */
 export function startAutoFlush() {
 	void recover();
-	const go = () => {
-		if (navigator.onLine) void flush();
-	};
+	const go = () => void flush();
 	window.addEventListener('online', go);
 	document.addEventListener('visibilitychange', go);
 	const timer = setInterval(go, 30_000);
